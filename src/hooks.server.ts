@@ -1,0 +1,118 @@
+import { redirect, type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
+import { sequence } from '@sveltejs/kit/hooks';
+import { apiError } from '$lib/server/api';
+import { authHandle } from '$lib/server/auth';
+import { retryAfterSeconds, throttleKeys } from '$lib/server/auth/throttle';
+import { getDb } from '$lib/server/db';
+import { sessionUser } from '$lib/server/users';
+
+/** Open and migrate the database before the first request is served. */
+export const init: ServerInit = () => {
+	getDb();
+};
+
+const attachDatabase: Handle = ({ event, resolve }) => {
+	event.locals.db = getDb();
+	event.locals.user = null;
+	return resolve(event);
+};
+
+const CODE_OF_STATUS: Record<number, string> = {
+	400: 'invalid',
+	401: 'unauthenticated',
+	403: 'forbidden',
+	404: 'not-found',
+	405: 'method-not-allowed',
+	409: 'conflict',
+	413: 'too-large',
+	429: 'throttled'
+};
+
+/** Every API failure, thrown by a guard or answered by the framework, as `{ error: { … } }`. */
+const shapeApiErrors: Handle = async ({ event, resolve }) => {
+	const response = await resolve(event);
+	if (!event.url.pathname.startsWith('/api/') || response.status < 400) return response;
+	const body = await response
+		.clone()
+		.json()
+		.catch(() => null);
+	if (body && typeof body === 'object' && 'error' in body) return response;
+	const code = body?.code ?? CODE_OF_STATUS[response.status] ?? 'server-error';
+	const message =
+		typeof body?.message === 'string' ? body.message : response.statusText || 'Request failed.';
+	const shaped = apiError(response.status, code, message, body?.fields);
+	const retryAfter = response.headers.get('retry-after');
+	if (retryAfter) shaped.headers.set('retry-after', retryAfter);
+	return shaped;
+};
+
+/** Scripts post credentials straight to Auth.js; a throttled account or address gets 429. */
+const throttleCredentialPosts: Handle = async ({ event, resolve }) => {
+	if (event.request.method === 'POST' && event.url.pathname === '/auth/callback/credentials') {
+		const form = await event.request
+			.clone()
+			.formData()
+			.catch(() => null);
+		const email = form?.get('email');
+		if (typeof email === 'string') {
+			const wait = retryAfterSeconds(
+				event.locals.db,
+				throttleKeys(email, event.getClientAddress())
+			);
+			if (wait > 0) {
+				const response = apiError(429, 'throttled', 'Too many failed sign-ins; try again later.');
+				response.headers.set('retry-after', String(wait));
+				return response;
+			}
+		}
+	}
+	return resolve(event);
+};
+
+const resolveUser: Handle = async ({ event, resolve }) => {
+	const session = await event.locals.auth();
+	if (session?.user?.id) {
+		// The session callback in $lib/server/auth copies the token's session version here.
+		const { sessionVersion } = session as typeof session & { sessionVersion?: number };
+		event.locals.user = sessionUser(event.locals.db, session.user.id, sessionVersion ?? 0);
+	}
+	return resolve(event);
+};
+
+/** Signed-out visitors of product pages go to sign-in; each load still checks for itself. */
+const sendSignedOutToSignIn: Handle = ({ event, resolve }) => {
+	if (!event.locals.user && event.route.id?.startsWith('/(app)')) {
+		const back = event.url.pathname + event.url.search;
+		redirect(303, `/signin?redirectTo=${encodeURIComponent(back)}`);
+	}
+	return resolve(event);
+};
+
+const SECURITY_HEADERS = {
+	'x-content-type-options': 'nosniff',
+	'referrer-policy': 'same-origin',
+	'x-frame-options': 'DENY'
+};
+
+const setSecurityHeaders: Handle = async ({ event, resolve }) => {
+	const response = await resolve(event);
+	for (const [name, value] of Object.entries(SECURITY_HEADERS)) {
+		if (!response.headers.has(name)) response.headers.set(name, value);
+	}
+	return response;
+};
+
+export const handle = sequence(
+	attachDatabase,
+	setSecurityHeaders,
+	shapeApiErrors,
+	throttleCredentialPosts,
+	authHandle,
+	resolveUser,
+	sendSignedOutToSignIn
+);
+
+export const handleError: HandleServerError = ({ error, status, message }) => {
+	if (status >= 500) console.error(error);
+	return { message: status >= 500 ? 'Something went wrong on the server.' : message };
+};

@@ -1,0 +1,28 @@
+const fixedFormats = new Map<number, Intl.NumberFormat>();
+
+/** A figure with a fixed number of decimals, grouped for reading (1 234.5). */
+export function fixed(value: number, decimals = 1): string {
+	let format = fixedFormats.get(decimals);
+	if (!format) {
+		format = new Intl.NumberFormat('en-GB', {
+			minimumFractionDigits: decimals,
+			maximumFractionDigits: decimals
+		});
+		fixedFormats.set(decimals, format);
+	}
+	return format.format(value);
+}
+
+export function percent(ratio: number, decimals = 1): string {
+	return `${fixed(ratio * 100, decimals)} %`;
+}
+
+const SECTION_KIND_LABELS = {
+	closed: 'Closed',
+	open: 'Open jet',
+	slotted: 'Slotted wall'
+} as const;
+
+export function sectionKindLabel(kind: keyof typeof SECTION_KIND_LABELS): string {
+	return SECTION_KIND_LABELS[kind];
+}

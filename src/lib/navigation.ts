@@ -1,0 +1,24 @@
+import type { Role } from './roles';
+
+export type NavItem = {
+	href: '/campaigns' | '/review' | '/operations' | '/facilities' | '/admin';
+	label: string;
+	roles: readonly Role[];
+};
+
+/** The header's links; each shows to users holding one of its roles. Pages check again. */
+export const NAV_ITEMS: readonly NavItem[] = [
+	{ href: '/campaigns', label: 'Campaigns', roles: ['aerodynamicist'] },
+	{ href: '/review', label: 'Review queue', roles: ['reviewer'] },
+	{ href: '/operations', label: 'Tunnel schedule', roles: ['operator'] },
+	{
+		href: '/facilities',
+		label: 'Facilities',
+		roles: ['aerodynamicist', 'reviewer', 'operator', 'admin']
+	},
+	{ href: '/admin', label: 'People', roles: ['admin'] }
+];
+
+export function navFor(roles: readonly Role[]): NavItem[] {
+	return NAV_ITEMS.filter((item) => item.roles.some((r) => roles.includes(r)));
+}

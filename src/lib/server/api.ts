@@ -1,0 +1,73 @@
+import { json, type RequestEvent } from '@sveltejs/kit';
+import type { z } from 'zod';
+import { STATUS_OF_REFUSAL, type Refusal } from './outcome';
+
+/** Largest JSON body the API reads; a campaign definition is far smaller. */
+export const MAX_JSON_BODY_BYTES = 1024 * 1024;
+
+export type ApiErrorBody = {
+	error: { code: string; message: string; fields?: Record<string, string[]> };
+};
+
+export function apiError(
+	status: number,
+	code: string,
+	message: string,
+	fields?: Record<string, string[]>
+): Response {
+	const body: ApiErrorBody = { error: { code, message, ...(fields ? { fields } : {}) } };
+	return json(body, { status });
+}
+
+export function refusalResponse(refusal: Refusal): Response {
+	const fields = refusal.field ? { [refusal.field]: [refusal.message] } : undefined;
+	return apiError(STATUS_OF_REFUSAL[refusal.code], refusal.code, refusal.message, fields);
+}
+
+/** zod issues as `{ "a.b": ["message"] }`, the shape forms and API clients both read. */
+export function fieldMessages(error: z.ZodError): Record<string, string[]> {
+	const fields: Record<string, string[]> = {};
+	for (const issue of error.issues) {
+		const key = issue.path.length ? issue.path.join('.') : '_';
+		(fields[key] ??= []).push(issue.message);
+	}
+	return fields;
+}
+
+type Parsed<T> = { ok: true; data: T } | { ok: false; response: Response };
+
+/** Reads and validates a JSON body: 413 past the size limit, 400 with field messages otherwise. */
+export async function readJson<S extends z.ZodType>(
+	event: RequestEvent,
+	schema: S
+): Promise<Parsed<z.output<S>>> {
+	const declared = Number(event.request.headers.get('content-length') ?? 0);
+	if (declared > MAX_JSON_BODY_BYTES) return { ok: false, response: tooLarge() };
+	const text = await event.request.text();
+	if (Buffer.byteLength(text) > MAX_JSON_BODY_BYTES) return { ok: false, response: tooLarge() };
+	let raw: unknown;
+	try {
+		raw = JSON.parse(text);
+	} catch {
+		return {
+			ok: false,
+			response: apiError(400, 'invalid-json', 'The request body is not valid JSON.')
+		};
+	}
+	const parsed = schema.safeParse(raw);
+	if (!parsed.success) {
+		return {
+			ok: false,
+			response: apiError(400, 'invalid', 'Some fields are not valid.', fieldMessages(parsed.error))
+		};
+	}
+	return { ok: true, data: parsed.data };
+}
+
+function tooLarge(): Response {
+	return apiError(
+		413,
+		'too-large',
+		`The request body is over ${MAX_JSON_BODY_BYTES / 1024 / 1024} MiB.`
+	);
+}

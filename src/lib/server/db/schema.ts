@@ -1,0 +1,180 @@
+import { sql } from 'drizzle-orm';
+import {
+	index,
+	integer,
+	primaryKey,
+	real,
+	sqliteTable,
+	text,
+	uniqueIndex
+} from 'drizzle-orm/sqlite-core';
+import type { AdapterAccountType } from '@auth/sveltekit/adapters';
+import { ROLES, TEAM_KINDS } from '../../roles';
+import { MODEL_KINDS, SECTION_KINDS } from '../../calc/kinds';
+
+const id = () =>
+	text('id')
+		.primaryKey()
+		.$defaultFn(() => crypto.randomUUID());
+const createdAt = () =>
+	integer('created_at', { mode: 'timestamp_ms' })
+		.notNull()
+		.default(sql`(unixepoch('subsec') * 1000)`);
+
+/** Users, in the column shape @auth/drizzle-adapter expects, plus our own columns. */
+export const user = sqliteTable('user', {
+	id: id(),
+	name: text('name'),
+	email: text('email').notNull().unique(),
+	emailVerified: integer('email_verified', { mode: 'timestamp_ms' }),
+	image: text('image'),
+	passwordHash: text('password_hash'),
+	active: integer('active', { mode: 'boolean' }).notNull().default(true),
+	/** Bumped to end every session of the user at once (deactivation, password change). */
+	sessionVersion: integer('session_version').notNull().default(1),
+	createdAt: createdAt()
+});
+
+/** Linked sign-in providers (Auth.js); unused by password sign-in but kept for the adapter. */
+export const account = sqliteTable(
+	'account',
+	{
+		userId: text('user_id')
+			.notNull()
+			.references(() => user.id, { onDelete: 'cascade' }),
+		type: text('type').$type<AdapterAccountType>().notNull(),
+		provider: text('provider').notNull(),
+		providerAccountId: text('provider_account_id').notNull(),
+		refresh_token: text('refresh_token'),
+		access_token: text('access_token'),
+		expires_at: integer('expires_at'),
+		token_type: text('token_type'),
+		scope: text('scope'),
+		id_token: text('id_token'),
+		session_state: text('session_state')
+	},
+	(t) => [primaryKey({ columns: [t.provider, t.providerAccountId] })]
+);
+
+export const userRole = sqliteTable(
+	'user_role',
+	{
+		userId: text('user_id')
+			.notNull()
+			.references(() => user.id, { onDelete: 'cascade' }),
+		role: text('role', { enum: ROLES }).notNull()
+	},
+	(t) => [primaryKey({ columns: [t.userId, t.role] })]
+);
+
+/** The facility's own staff form one team; each client organisation forms another. */
+export const team = sqliteTable('team', {
+	id: id(),
+	name: text('name').notNull().unique(),
+	kind: text('kind', { enum: TEAM_KINDS }).notNull(),
+	createdAt: createdAt()
+});
+
+export const teamMember = sqliteTable(
+	'team_member',
+	{
+		teamId: text('team_id')
+			.notNull()
+			.references(() => team.id, { onDelete: 'cascade' }),
+		userId: text('user_id')
+			.notNull()
+			.references(() => user.id, { onDelete: 'cascade' })
+	},
+	(t) => [primaryKey({ columns: [t.teamId, t.userId] }), index('team_member_user').on(t.userId)]
+);
+
+/** One-time set-password links; only a hash of the token is stored. */
+export const invitation = sqliteTable(
+	'invitation',
+	{
+		id: id(),
+		userId: text('user_id')
+			.notNull()
+			.references(() => user.id, { onDelete: 'cascade' }),
+		tokenHash: text('token_hash').notNull(),
+		createdBy: text('created_by').references(() => user.id, { onDelete: 'set null' }),
+		expiresAt: integer('expires_at', { mode: 'timestamp_ms' }).notNull(),
+		usedAt: integer('used_at', { mode: 'timestamp_ms' }),
+		createdAt: createdAt()
+	},
+	(t) => [uniqueIndex('invitation_token').on(t.tokenHash)]
+);
+
+/** Failed sign-ins, keyed by account (`account:<email>`) and by address (`address:<ip>`). */
+export const signInThrottle = sqliteTable('sign_in_throttle', {
+	key: text('key').primaryKey(),
+	failures: integer('failures').notNull(),
+	windowStartedAt: integer('window_started_at', { mode: 'timestamp_ms' }).notNull(),
+	lockedUntil: integer('locked_until', { mode: 'timestamp_ms' })
+});
+
+/** Values the server generates once and keeps, such as the session-signing secret. */
+export const appSetting = sqliteTable('app_setting', {
+	key: text('key').primaryKey(),
+	value: text('value').notNull()
+});
+
+export const facility = sqliteTable('facility', {
+	id: id(),
+	name: text('name').notNull().unique(),
+	sectionKind: text('section_kind', { enum: SECTION_KINDS }).notNull(),
+	sectionWidth_m: real('section_width_m').notNull(),
+	sectionHeight_m: real('section_height_m').notNull(),
+	cornerFillet_m: real('corner_fillet_m').notNull().default(0),
+	sectionLength_m: real('section_length_m').notNull(),
+	minSpeed_mps: real('min_speed_mps').notNull(),
+	maxSpeed_mps: real('max_speed_mps').notNull(),
+	maxDynamicPressure_Pa: real('max_dynamic_pressure_pa').notNull(),
+	yawMin_deg: real('yaw_min_deg').notNull(),
+	yawMax_deg: real('yaw_max_deg').notNull(),
+	blockageCaution: real('blockage_caution').notNull(),
+	blockageLimit: real('blockage_limit').notNull(),
+	settling_s: real('settling_s').notNull(),
+	traverseMove_s: real('traverse_move_s').notNull(),
+	yawChange_s: real('yaw_change_s').notNull(),
+	modelChange_s: real('model_change_s').notNull(),
+	setUp_s: real('set_up_s').notNull(),
+	tearDown_s: real('tear_down_s').notNull(),
+	/** Weekly opening hours as JSON: `{ "mon": ["08:00", "18:00"], ... }` in the facility's zone. */
+	openingHours: text('opening_hours', { mode: 'json' })
+		.$type<Record<string, [string, string]>>()
+		.notNull(),
+	timeZone: text('time_zone').notNull(),
+	/** Decimal string, so money never passes through binary floating point. */
+	hourlyRate: text('hourly_rate').notNull(),
+	currency: text('currency').notNull(),
+	siteAltitude_m: real('site_altitude_m').notNull(),
+	typicalTemperature_K: real('typical_temperature_k').notNull(),
+	typicalRelativeHumidity: real('typical_relative_humidity').notNull(),
+	createdAt: createdAt()
+});
+
+export const scaleModel = sqliteTable(
+	'scale_model',
+	{
+		id: id(),
+		teamId: text('team_id')
+			.notNull()
+			.references(() => team.id, { onDelete: 'restrict' }),
+		name: text('name').notNull(),
+		kind: text('kind', { enum: MODEL_KINDS }).notNull(),
+		/** N of a 1:N scale. */
+		scaleDenominator: real('scale_denominator').notNull(),
+		fullScaleLength_m: real('full_scale_length_m').notNull(),
+		fullScaleWidth_m: real('full_scale_width_m').notNull(),
+		fullScaleHeight_m: real('full_scale_height_m').notNull(),
+		fullScaleFrontalArea_m2: real('full_scale_frontal_area_m2').notNull(),
+		/** The length Re is based on, at full scale. */
+		referenceLength_m: real('reference_length_m').notNull(),
+		dragCoefficient: real('drag_coefficient'),
+		modelVolume_m3: real('model_volume_m3'),
+		createdBy: text('created_by').references(() => user.id, { onDelete: 'set null' }),
+		createdAt: createdAt()
+	},
+	(t) => [uniqueIndex('scale_model_team_name').on(t.teamId, t.name)]
+);

@@ -1,0 +1,4 @@
+import { requireUser } from '$lib/server/guards';
+import type { LayoutServerLoad } from './$types';
+
+export const load: LayoutServerLoad = ({ locals }) => ({ user: requireUser(locals) });

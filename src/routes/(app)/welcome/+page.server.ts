@@ -1,0 +1,6 @@
+import { requireUser } from '$lib/server/guards';
+import type { PageServerLoad } from './$types';
+
+export const load: PageServerLoad = ({ locals }) => {
+	requireUser(locals);
+};

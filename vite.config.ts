@@ -1,0 +1,32 @@
+import { sveltekit } from '@sveltejs/kit/vite';
+import tailwindcss from '@tailwindcss/vite';
+import { defineConfig } from 'vitest/config';
+
+export default defineConfig({
+	plugins: [tailwindcss(), sveltekit()],
+	test: {
+		expect: { requireAssertions: true },
+		projects: [
+			{
+				extends: true,
+				test: {
+					name: 'unit',
+					environment: 'node',
+					include: ['src/**/*.test.ts', 'tests/unit/**/*.test.ts', 'tests/server/**/*.test.ts']
+				}
+			},
+			{
+				extends: true,
+				test: {
+					name: 'e2e',
+					environment: 'node',
+					include: ['tests/e2e/**/*.e2e.ts'],
+					globalSetup: ['tests/e2e/global-setup.ts'],
+					testTimeout: 60_000,
+					hookTimeout: 180_000,
+					fileParallelism: false
+				}
+			}
+		]
+	}
+});
