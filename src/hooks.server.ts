@@ -1,6 +1,6 @@
 import { redirect, type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
-import { apiError } from '$lib/server/api';
+import { apiError, MAX_REQUEST_BODY_BYTES, tooLarge } from '$lib/server/api';
 import { authHandle } from '$lib/server/auth';
 import { retryAfterSeconds, throttleKeys } from '$lib/server/auth/throttle';
 import { getDb } from '$lib/server/db';
@@ -44,6 +44,15 @@ const shapeApiErrors: Handle = async ({ event, resolve }) => {
 	const retryAfter = response.headers.get('retry-after');
 	if (retryAfter) shaped.headers.set('retry-after', retryAfter);
 	return shaped;
+};
+
+/**
+ * Refuses a declared body over the limit before anything reads it. adapter-node's own
+ * BODY_SIZE_LIMIT also stops bodies sent without a length, mid-stream.
+ */
+const rejectOversizedBodies: Handle = ({ event, resolve }) => {
+	const declared = Number(event.request.headers.get('content-length') ?? 0);
+	return declared > MAX_REQUEST_BODY_BYTES ? tooLarge() : resolve(event);
 };
 
 /** Scripts post credentials straight to Auth.js; a throttled account or address gets 429. */
@@ -106,6 +115,7 @@ export const handle = sequence(
 	attachDatabase,
 	setSecurityHeaders,
 	shapeApiErrors,
+	rejectOversizedBodies,
 	throttleCredentialPosts,
 	authHandle,
 	resolveUser,

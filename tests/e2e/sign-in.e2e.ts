@@ -89,9 +89,48 @@ describe('the API', () => {
 		await context.close();
 	});
 
+	it('computes for a signed-in user and refuses others with 401 JSON', async () => {
+		const body = { model: 'isa', geopotentialAltitude: { value: 5, unit: 'km' } };
+		const signedOut = await fetch(url('/api/v1/calc/atmosphere'), {
+			method: 'POST',
+			body: JSON.stringify(body),
+			headers: { 'content-type': 'application/json' }
+		});
+		expect(signedOut.status).toBe(401);
+		expect((await signedOut.json()).error.code).toBe('unauthenticated');
+
+		const context = await browser.newContext();
+		const page = await context.newPage();
+		await signIn(page, 'aero@demo.test');
+		await page.waitForURL(url('/campaigns'));
+		const answer = await context.request.post(url('/api/v1/calc/atmosphere'), { data: body });
+		expect(answer.status()).toBe(200);
+		// ISO 2533:1975 via the domain primer's table: H = 5000 m → 255.650 K, 0.736116 kg/m³.
+		const { air } = await answer.json();
+		expect(air.temperature_K).toBeCloseTo(255.65, 3);
+		expect(air.density_kgm3).toBeCloseTo(0.736116, 5);
+		await context.close();
+	});
+
 	it('answers unknown API paths with the JSON error shape', async () => {
 		const response = await fetch(url('/api/v1/no-such-thing'));
 		expect(response.status).toBe(404);
 		expect((await response.json()).error.code).toBe('not-found');
+	});
+});
+
+describe('oversized requests', () => {
+	const body = 'x'.repeat(2 * 1024 * 1024);
+	it.each(['/signin', '/api/v1/me'])('POST %s with a 2 MiB body answers 413', async (path) => {
+		const response = await fetch(url(path), {
+			method: 'POST',
+			body,
+			headers: {
+				'content-type': 'application/x-www-form-urlencoded',
+				origin: url('/').slice(0, -1)
+			}
+		});
+		expect(response.status).toBe(413);
+		expect((await response.json()).error.code).toBe('too-large');
 	});
 });

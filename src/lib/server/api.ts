@@ -1,9 +1,11 @@
-import { json, type RequestEvent } from '@sveltejs/kit';
+import { json, type RequestEvent, type RequestHandler } from '@sveltejs/kit';
 import type { z } from 'zod';
+import { CalcInputError } from '../calc';
+import { requireUser } from './guards';
 import { STATUS_OF_REFUSAL, type Refusal } from './outcome';
 
-/** Largest JSON body the API reads; a campaign definition is far smaller. */
-export const MAX_JSON_BODY_BYTES = 1024 * 1024;
+/** Largest request body the app reads; a campaign definition is far smaller. */
+export const MAX_REQUEST_BODY_BYTES = 1024 * 1024;
 
 export type ApiErrorBody = {
 	error: { code: string; message: string; fields?: Record<string, string[]> };
@@ -41,10 +43,8 @@ export async function readJson<S extends z.ZodType>(
 	event: RequestEvent,
 	schema: S
 ): Promise<Parsed<z.output<S>>> {
-	const declared = Number(event.request.headers.get('content-length') ?? 0);
-	if (declared > MAX_JSON_BODY_BYTES) return { ok: false, response: tooLarge() };
 	const text = await event.request.text();
-	if (Buffer.byteLength(text) > MAX_JSON_BODY_BYTES) return { ok: false, response: tooLarge() };
+	if (Buffer.byteLength(text) > MAX_REQUEST_BODY_BYTES) return { ok: false, response: tooLarge() };
 	let raw: unknown;
 	try {
 		raw = JSON.parse(text);
@@ -64,10 +64,36 @@ export async function readJson<S extends z.ZodType>(
 	return { ok: true, data: parsed.data };
 }
 
-function tooLarge(): Response {
+export function tooLarge(): Response {
 	return apiError(
 		413,
 		'too-large',
-		`The request body is over ${MAX_JSON_BODY_BYTES / 1024 / 1024} MiB.`
+		`The request body is over ${MAX_REQUEST_BODY_BYTES / 1024 / 1024} MiB.`
 	);
+}
+
+/** Runs a calculation; input the core refuses becomes a 400 naming the parameter. */
+export function calculationResponse(run: () => unknown): Response {
+	try {
+		return json(run());
+	} catch (error) {
+		if (!(error instanceof CalcInputError)) throw error;
+		return apiError(400, 'invalid', error.message, { [error.parameter]: [error.message] });
+	}
+}
+
+/**
+ * A POST handler for a calculation: any signed-in user, a zod-validated JSON body, the core's
+ * answer as JSON in SI with the unit in each property name.
+ */
+export function calculationEndpoint<S extends z.ZodType>(
+	schema: S,
+	compute: (input: z.output<S>) => unknown
+): RequestHandler {
+	return async (event) => {
+		requireUser(event.locals);
+		const body = await readJson(event, schema);
+		if (!body.ok) return body.response;
+		return calculationResponse(() => compute(body.data));
+	};
 }

@@ -1,0 +1,70 @@
+/**
+ * Tunnelwright's calculation core: pure TypeScript, SI units inside, units only at the edges.
+ * No framework, DOM or database imports belong in this folder.
+ */
+export type { AirState } from './air-state';
+export { CalcInputError } from './errors';
+export type { Finding } from './findings';
+export { SECTION_KINDS, MODEL_KINDS, DEFAULT_RE_INDEPENDENCE } from './kinds';
+export type { SectionKind, ModelKind, ReferenceBasis } from './kinds';
+export {
+	ISA,
+	ISA_MIN_ALTITUDE_M,
+	ISA_MAX_ALTITUDE_M,
+	isaAtmosphere,
+	sutherlandViscosity,
+	speedOfSound,
+	dryAirState,
+	geopotentialAltitude
+} from './atmosphere';
+export { airState, saturationVapourPressure, DEFAULT_CO2_MOLE_FRACTION } from './humid-air';
+export {
+	reynoldsNumber,
+	machNumber,
+	dynamicPressure,
+	pitotSpeed,
+	INCOMPRESSIBLE_MACH_LIMIT
+} from './flow';
+export { similarity } from './similarity';
+export type { Similarity, SimilarityInput } from './similarity';
+export {
+	blockage,
+	sectionArea,
+	DEFAULT_BLOCKAGE_LIMITS,
+	DEFAULT_BODY_SHAPE_FACTOR,
+	DEFAULT_TUNNEL_SHAPE_FACTOR,
+	MASKELL_THETA_3D
+} from './blockage';
+export type {
+	Blockage,
+	BlockageInput,
+	BlockageLimits,
+	BlockageMethod,
+	TestSection
+} from './blockage';
+export { convertUnit as convert, knownUnits, pascalsToMmH2O } from './units';
+export {
+	expandMatrix,
+	speedConditions,
+	envelopeFindings,
+	matrixSize,
+	validatePlan,
+	uniformGrid,
+	MAX_MATRIX_POINTS,
+	MAX_POINTS_PER_PLANE
+} from './matrix';
+export type {
+	MatrixPlan,
+	MatrixRow,
+	MeasurementPlane,
+	ProbeGrid,
+	Configuration,
+	SpeedCondition,
+	FacilityEnvelope,
+	UniformGridSpec
+} from './matrix';
+export { estimateOccupancy } from './occupancy';
+export type { FacilityTiming, Occupancy } from './occupancy';
+export { propagateUncertainty } from './uncertainty';
+export type { UncertainInput, UncertaintyBudget } from './uncertainty';
+export { occupancyCost, toSignificant } from './money';
