@@ -26,6 +26,12 @@ export default ts.config(
 				svelteConfig
 			}
 		},
-		rules: { '@typescript-eslint/no-floating-promises': 'error' }
+		rules: {
+			'@typescript-eslint/no-floating-promises': 'error',
+			'@typescript-eslint/no-unused-vars': [
+				'error',
+				{ argsIgnorePattern: '^_', varsIgnorePattern: '^_', destructuredArrayIgnorePattern: '^_' }
+			]
+		}
 	}
 );

@@ -4,6 +4,8 @@ import { defineConfig } from 'vitest/config';
 
 export default defineConfig({
 	plugins: [tailwindcss(), sveltekit()],
+	// convert-units' lodash helpers read Node's `global`; the browser calls it globalThis.
+	define: { global: 'globalThis' },
 	test: {
 		expect: { requireAssertions: true },
 		projects: [

@@ -3,6 +3,7 @@
  * Every name, dimension and figure here is made up for the demo; none is a check value.
  */
 import type { Role } from '../src/lib/roles';
+import type { CampaignInput } from '../src/lib/schemas/campaign';
 import type { facility, scaleModel } from '../src/lib/server/db/schema';
 
 export const DEMO_PASSWORD = 'steady-flow-demo';
@@ -159,6 +160,194 @@ export const DEMO_MODELS: { team: string; owner: string; model: ModelRow }[] = [
 			referenceLength_m: 3.2,
 			dragCoefficient: 1.2,
 			modelVolume_m3: 0.0096
+		}
+	}
+];
+
+type CampaignSeed = {
+	owner: string;
+	model: string;
+	facility: string;
+	input: Omit<CampaignInput, 'modelId' | 'facilityId'>;
+};
+
+const sweep = (from: number, to: number, step: number) =>
+	Array.from({ length: Math.round((to - from) / step) + 1 }, (_, i) => from + i * step);
+
+export const DEMO_CAMPAIGNS: CampaignSeed[] = [
+	{
+		owner: 'aero@demo.test',
+		model: 'AM-7 sports prototype',
+		facility: 'Tern closed-return tunnel',
+		input: {
+			name: 'AM-7 rear-wing wake survey',
+			objective:
+				'Map the wake behind the AM-7 at two downstream planes for the baseline and two rear-wing settings, and check the drag trend for Re-independence across the speed sweep.',
+			air: { model: 'isa', siteAltitude_m: 120, temperatureOffset_K: 5 },
+			fullScaleSpeed_mps: 55,
+			fullScaleAltitude_m: 0,
+			reIndependenceThreshold: 2.5e6,
+			speedUnit: 'm/s',
+			configurations: [
+				{
+					id: 'base',
+					label: 'Baseline',
+					description: 'Wing at the homologated setting.',
+					baseline: true
+				},
+				{ id: 'wing-lo', label: 'Wing low', description: 'Main plane −3°.', baseline: false },
+				{
+					id: 'wing-hi',
+					label: 'Wing high',
+					description: 'Main plane +4°, Gurney 8 mm.',
+					baseline: false
+				}
+			],
+			speeds_mps: [30, 40, 50],
+			yawAngles_deg: [-6, -3, 0, 3, 6],
+			planes: [
+				{
+					id: 'x05',
+					label: 'Half a length behind',
+					downstream: { value: 0.5, unit: 'model-lengths' },
+					grid: {
+						mode: 'uniform',
+						rows: 24,
+						columns: 40,
+						rowSpacing_m: 0.012,
+						columnSpacing_m: 0.015,
+						firstRow_m: 0.01,
+						firstColumn_m: -0.2925
+					}
+				},
+				{
+					id: 'x10',
+					label: 'One length behind',
+					downstream: { value: 1, unit: 'model-lengths' },
+					grid: {
+						mode: 'uniform',
+						rows: 12,
+						columns: 20,
+						rowSpacing_m: 0.024,
+						columnSpacing_m: 0.03,
+						firstRow_m: 0.01,
+						firstColumn_m: -0.285
+					}
+				}
+			],
+			dwellPerPoint_s: 6,
+			repeats: 1
+		}
+	},
+	{
+		owner: 'aero@demo.test',
+		model: 'AM-3 club racer',
+		facility: 'Tern closed-return tunnel',
+		input: {
+			name: 'AM-3 speed sweep',
+			objective:
+				'Find where the AM-3’s pressure coefficients stop changing with speed before the aero package is developed.',
+			air: { model: 'measured', temperature_K: 291.15, pressure_Pa: 99_800, relativeHumidity: 0.6 },
+			fullScaleSpeed_mps: 40,
+			fullScaleAltitude_m: 0,
+			reIndependenceThreshold: null,
+			speedUnit: 'km/h',
+			configurations: [
+				{ id: 'base', label: 'Baseline', description: 'As delivered.', baseline: true }
+			],
+			speeds_mps: sweep(15, 55, 5),
+			yawAngles_deg: [0],
+			planes: [
+				{
+					id: 'wake',
+					label: 'Near wake',
+					downstream: { value: 150, unit: 'mm' },
+					grid: {
+						mode: 'explicit',
+						y_m: [0.03, 0.08, 0.13, 0.18],
+						z_m: [-0.12, -0.06, 0, 0.06, 0.12]
+					}
+				}
+			],
+			dwellPerPoint_s: 15,
+			repeats: 1
+		}
+	},
+	{
+		owner: 'aero2@demo.test',
+		model: 'Heron-4 survey quadcopter',
+		facility: 'Plover open-jet tunnel',
+		input: {
+			name: 'Heron-4 forward-flight wake',
+			objective:
+				'Survey the rotor wake in forward flight at three airspeeds and two body pitch settings.',
+			air: { model: 'isa', siteAltitude_m: 120, temperatureOffset_K: 0 },
+			fullScaleSpeed_mps: 12,
+			fullScaleAltitude_m: 300,
+			reIndependenceThreshold: null,
+			speedUnit: 'm/s',
+			configurations: [
+				{ id: 'level', label: 'Level body', description: 'Body pitch 0°.', baseline: true },
+				{ id: 'nose-down', label: 'Nose down', description: 'Body pitch −8°.', baseline: false }
+			],
+			speeds_mps: [6, 9, 12],
+			yawAngles_deg: [0, 15],
+			planes: [
+				{
+					id: 'x1',
+					label: 'One span behind',
+					downstream: { value: 1, unit: 'model-lengths' },
+					grid: {
+						mode: 'uniform',
+						rows: 10,
+						columns: 14,
+						rowSpacing_m: 0.04,
+						columnSpacing_m: 0.05,
+						firstRow_m: 0.1,
+						firstColumn_m: -0.325
+					}
+				}
+			],
+			dwellPerPoint_s: 8,
+			repeats: 1
+		}
+	},
+	{
+		owner: 'aero2@demo.test',
+		model: 'Rooftop dock enclosure',
+		facility: 'Tern closed-return tunnel',
+		input: {
+			name: 'Dock enclosure roof pressures',
+			objective:
+				'Mean and peak roof pressures on the dock enclosure for wind from eight directions.',
+			air: { model: 'isa', siteAltitude_m: 120, temperatureOffset_K: 0 },
+			fullScaleSpeed_mps: 25,
+			fullScaleAltitude_m: 0,
+			reIndependenceThreshold: 2.7e4,
+			speedUnit: 'm/s',
+			configurations: [
+				{ id: 'bare', label: 'Bare roof', description: 'No parapet.', baseline: true }
+			],
+			speeds_mps: [12],
+			yawAngles_deg: [-20, -10, 0, 10, 20],
+			planes: [
+				{
+					id: 'lee',
+					label: 'Leeward',
+					downstream: { value: 200, unit: 'mm' },
+					grid: {
+						mode: 'uniform',
+						rows: 6,
+						columns: 8,
+						rowSpacing_m: 0.02,
+						columnSpacing_m: 0.025,
+						firstRow_m: 0.02,
+						firstColumn_m: -0.0875
+					}
+				}
+			],
+			dwellPerPoint_s: 20,
+			repeats: 3
 		}
 	}
 ];

@@ -1,7 +1,9 @@
-import { eq } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
 import { hashPassword } from '../src/lib/server/auth/password';
 import { databasePathFromEnv, migrateDatabase, openDatabase } from '../src/lib/server/db/open';
+import { campaignSchema } from '../src/lib/schemas/campaign';
 import {
+	campaign,
 	facility,
 	scaleModel,
 	team,
@@ -12,6 +14,7 @@ import {
 import {
 	CLIENT_TEAMS,
 	DEMO_ACCOUNTS,
+	DEMO_CAMPAIGNS,
 	DEMO_FACILITIES,
 	DEMO_MODELS,
 	DEMO_PASSWORD,
@@ -68,16 +71,53 @@ db.transaction((tx) => {
 			.run();
 	}
 
+	const modelIds = new Map<string, { id: string; teamId: string }>();
 	for (const { team: teamName, owner, model } of DEMO_MODELS) {
 		const teamId = teamIds.get(teamName)!;
-		tx.insert(scaleModel)
+		const row = tx
+			.insert(scaleModel)
 			.values({ ...model, teamId, createdBy: userIds.get(owner) })
 			.onConflictDoUpdate({ target: [scaleModel.teamId, scaleModel.name], set: model })
-			.run();
+			.returning({ id: scaleModel.id })
+			.get();
+		modelIds.set(model.name, { id: row.id, teamId });
+	}
+
+	const facilityIds = new Map(
+		tx
+			.select({ id: facility.id, name: facility.name })
+			.from(facility)
+			.all()
+			.map((f) => [f.name, f.id])
+	);
+	for (const seed of DEMO_CAMPAIGNS) {
+		const model = modelIds.get(seed.model)!;
+		// Demo campaigns pass the same checks as any other.
+		const { name, objective, modelId, facilityId, ...definition } = campaignSchema.parse({
+			...seed.input,
+			modelId: model.id,
+			facilityId: facilityIds.get(seed.facility)!
+		});
+		const values = {
+			name,
+			objective,
+			modelId,
+			facilityId,
+			definition,
+			teamId: model.teamId,
+			ownerId: userIds.get(seed.owner)!
+		};
+		const existing = tx
+			.select({ id: campaign.id })
+			.from(campaign)
+			.where(and(eq(campaign.teamId, model.teamId), eq(campaign.name, name)))
+			.get();
+		if (existing) tx.update(campaign).set(values).where(eq(campaign.id, existing.id)).run();
+		else tx.insert(campaign).values(values).run();
 	}
 });
 
 db.$client.close();
 console.log(
-	`Seeded ${path}: ${DEMO_ACCOUNTS.length} accounts, ${DEMO_FACILITIES.length} facilities, ${DEMO_MODELS.length} models.`
+	`Seeded ${path}: ${DEMO_ACCOUNTS.length} accounts, ${DEMO_FACILITIES.length} facilities, ${DEMO_MODELS.length} models, ${DEMO_CAMPAIGNS.length} campaigns.`
 );

@@ -1,6 +1,7 @@
 import { redirect, type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { apiError, MAX_REQUEST_BODY_BYTES, tooLarge } from '$lib/server/api';
+import { ATTACHMENT_MAX_BYTES } from '$lib/schemas/model';
 import { authHandle } from '$lib/server/auth';
 import { retryAfterSeconds, throttleKeys } from '$lib/server/auth/throttle';
 import { getDb } from '$lib/server/db';
@@ -46,13 +47,20 @@ const shapeApiErrors: Handle = async ({ event, resolve }) => {
 	return shaped;
 };
 
+/** Routes that take file uploads; the attachment's own limit is checked when it is stored. */
+const UPLOAD_ROUTES = new Set(['/(app)/models/[id]']);
+const MAX_UPLOAD_BODY_BYTES = ATTACHMENT_MAX_BYTES + 256 * 1024;
+
 /**
  * Refuses a declared body over the limit before anything reads it. adapter-node's own
  * BODY_SIZE_LIMIT also stops bodies sent without a length, mid-stream.
  */
 const rejectOversizedBodies: Handle = ({ event, resolve }) => {
 	const declared = Number(event.request.headers.get('content-length') ?? 0);
-	return declared > MAX_REQUEST_BODY_BYTES ? tooLarge() : resolve(event);
+	const limit = UPLOAD_ROUTES.has(event.route.id ?? '')
+		? MAX_UPLOAD_BODY_BYTES
+		: MAX_REQUEST_BODY_BYTES;
+	return declared > limit ? tooLarge(limit) : resolve(event);
 };
 
 /** Scripts post credentials straight to Auth.js; a throttled account or address gets 429. */

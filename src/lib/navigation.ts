@@ -1,7 +1,7 @@
 import type { Role } from './roles';
 
 export type NavItem = {
-	href: '/campaigns' | '/review' | '/operations' | '/facilities' | '/admin';
+	href: '/campaigns' | '/models' | '/review' | '/operations' | '/facilities' | '/admin';
 	label: string;
 	roles: readonly Role[];
 };
@@ -9,6 +9,7 @@ export type NavItem = {
 /** The header's links; each shows to users holding one of its roles. Pages check again. */
 export const NAV_ITEMS: readonly NavItem[] = [
 	{ href: '/campaigns', label: 'Campaigns', roles: ['aerodynamicist'] },
+	{ href: '/models', label: 'Scale models', roles: ['aerodynamicist'] },
 	{ href: '/review', label: 'Review queue', roles: ['reviewer'] },
 	{ href: '/operations', label: 'Tunnel schedule', roles: ['operator'] },
 	{

@@ -21,7 +21,11 @@ describe('navigation by role', () => {
 		for (const role of ROLES) {
 			for (const item of navFor([role])) expect(item.roles).toContain(role);
 		}
-		expect(navFor(['aerodynamicist']).map((i) => i.href)).toEqual(['/campaigns', '/facilities']);
+		expect(navFor(['aerodynamicist']).map((i) => i.href)).toEqual([
+			'/campaigns',
+			'/models',
+			'/facilities'
+		]);
 		expect(navFor([])).toEqual([]);
 	});
 });

@@ -1,25 +1,10 @@
-import { chromium, type Browser, type Page } from 'playwright-core';
+import type { Browser, Page } from 'playwright-core';
 import { inject } from 'vitest';
+import { launchChromium } from '../../scripts/chromium';
 import { DEMO_PASSWORD } from '../../scripts/demo-scenario';
 
-export const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
-
-// Debian's Chromium, headless; the background-networking flags stop it calling hosts this
-// network refuses.
-const FLAGS = [
-	'--headless',
-	'--no-sandbox',
-	'--disable-gpu',
-	'--disable-quic',
-	'--no-first-run',
-	'--disable-background-networking',
-	'--disable-component-update',
-	'--disable-sync'
-];
-
-/** Playwright gives each launch a fresh temporary profile of its own. */
 export async function launchBrowser(): Promise<{ browser: Browser; close: () => Promise<void> }> {
-	const browser = await chromium.launch({ executablePath: CHROMIUM, args: FLAGS });
+	const browser = await launchChromium();
 	return { browser, close: () => browser.close() };
 }
 

@@ -64,11 +64,11 @@ export async function readJson<S extends z.ZodType>(
 	return { ok: true, data: parsed.data };
 }
 
-export function tooLarge(): Response {
+export function tooLarge(limit_bytes = MAX_REQUEST_BODY_BYTES): Response {
 	return apiError(
 		413,
 		'too-large',
-		`The request body is over ${MAX_REQUEST_BODY_BYTES / 1024 / 1024} MiB.`
+		`The request body is over ${(limit_bytes / 1024 / 1024).toFixed(1)} MiB.`
 	);
 }
 

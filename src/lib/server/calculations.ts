@@ -84,3 +84,5 @@ export function evaluateMatrixRequest(req: MatrixRequest) {
 		occupancy
 	};
 }
+
+export type MatrixEvaluation = ReturnType<typeof evaluateMatrixRequest>;

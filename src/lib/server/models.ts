@@ -1,20 +1,150 @@
-import { asc, eq, inArray } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray } from 'drizzle-orm';
 import type { SessionUser } from '../roles';
+import { ATTACHMENT_MAX_BYTES, type ScaleModelInput } from '../schemas/model';
+import { canReadModel, canWriteModel } from './access';
 import type { Db } from './db/open';
-import { scaleModel, team } from './db/schema';
+import { modelAttachment, scaleModel, team } from './db/schema';
+import { refuse, type Outcome } from './outcome';
+import { sniffAttachmentType } from './sniff';
+import type { BlobStore } from './storage';
 
 export type ScaleModel = typeof scaleModel.$inferSelect & { teamName: string };
+export type ModelAttachment = typeof modelAttachment.$inferSelect;
 
-/** Models visible to the user: their own teams' only, since clients' work is confidential. */
-export function listModelsFor(db: Db, viewer: SessionUser): ScaleModel[] {
-	const teamIds = viewer.teams.map((t) => t.id);
-	if (!teamIds.length) return [];
-	return db
+const withTeam = (db: Db) =>
+	db
 		.select({ model: scaleModel, teamName: team.name })
 		.from(scaleModel)
-		.innerJoin(team, eq(team.id, scaleModel.teamId))
+		.innerJoin(team, eq(team.id, scaleModel.teamId));
+
+const flatten = ({
+	model,
+	teamName
+}: {
+	model: typeof scaleModel.$inferSelect;
+	teamName: string;
+}) => ({
+	...model,
+	teamName
+});
+
+/** Models visible to the user: their own teams' only (admins: all), since clients' work is confidential. */
+export function listModelsFor(db: Db, viewer: SessionUser): ScaleModel[] {
+	const query = withTeam(db).orderBy(asc(team.name), asc(scaleModel.name));
+	if (viewer.roles.includes('admin')) return query.all().map(flatten);
+	const teamIds = viewer.teams.map((t) => t.id);
+	if (!teamIds.length || !viewer.roles.includes('aerodynamicist')) return [];
+	return withTeam(db)
 		.where(inArray(scaleModel.teamId, teamIds))
 		.orderBy(asc(team.name), asc(scaleModel.name))
 		.all()
-		.map(({ model, teamName }) => ({ ...model, teamName }));
+		.map(flatten);
+}
+
+/** The model if the viewer may see it; otherwise undefined, so callers answer 404 alike. */
+export function getModelFor(db: Db, viewer: SessionUser, id: string): ScaleModel | undefined {
+	const row = withTeam(db).where(eq(scaleModel.id, id)).get();
+	return row && canReadModel(viewer, row.model) ? flatten(row) : undefined;
+}
+
+function nameTaken(db: Db, teamId: string, name: string, exceptId?: string) {
+	const other = db
+		.select({ id: scaleModel.id })
+		.from(scaleModel)
+		.where(and(eq(scaleModel.teamId, teamId), eq(scaleModel.name, name)))
+		.get();
+	return !!other && other.id !== exceptId;
+}
+
+export function createModel(
+	db: Db,
+	viewer: SessionUser,
+	input: ScaleModelInput
+): Outcome<{ id: string }> {
+	if (!canWriteModel(viewer, { teamId: input.teamId })) {
+		return refuse('forbidden', 'You can add models only to your own team.', 'teamId');
+	}
+	if (nameTaken(db, input.teamId, input.name)) {
+		return refuse('conflict', 'Your team already has a model of this name.', 'name');
+	}
+	const { id } = db
+		.insert(scaleModel)
+		.values({ ...input, createdBy: viewer.id })
+		.returning({ id: scaleModel.id })
+		.get();
+	return { ok: true, id };
+}
+
+export function updateModel(
+	db: Db,
+	viewer: SessionUser,
+	id: string,
+	input: ScaleModelInput
+): Outcome {
+	const existing = getModelFor(db, viewer, id);
+	if (!existing || !canWriteModel(viewer, existing)) return refuse('not-found', 'No such model.');
+	if (input.teamId !== existing.teamId && !canWriteModel(viewer, { teamId: input.teamId })) {
+		return refuse('forbidden', 'You can move a model only to your own team.', 'teamId');
+	}
+	if (nameTaken(db, input.teamId, input.name, id)) {
+		return refuse('conflict', 'Your team already has a model of this name.', 'name');
+	}
+	db.update(scaleModel).set(input).where(eq(scaleModel.id, id)).run();
+	return { ok: true };
+}
+
+export function listAttachments(db: Db, modelId: string): ModelAttachment[] {
+	return db
+		.select()
+		.from(modelAttachment)
+		.where(eq(modelAttachment.modelId, modelId))
+		.orderBy(desc(modelAttachment.createdAt))
+		.all();
+}
+
+/** Stores an upload after checking its size and sniffing its type from the bytes. */
+export async function addAttachment(
+	db: Db,
+	store: BlobStore,
+	viewer: SessionUser,
+	modelId: string,
+	file: { name: string; bytes: Uint8Array }
+): Promise<Outcome<{ id: string }>> {
+	const model = getModelFor(db, viewer, modelId);
+	if (!model || !canWriteModel(viewer, model)) return refuse('not-found', 'No such model.');
+	if (file.bytes.byteLength === 0) return refuse('invalid', 'The file is empty.', 'file');
+	if (file.bytes.byteLength > ATTACHMENT_MAX_BYTES) {
+		return refuse(
+			'invalid',
+			`Files may be at most ${ATTACHMENT_MAX_BYTES / 1024 / 1024} MiB.`,
+			'file'
+		);
+	}
+	const mediaType = await sniffAttachmentType(file.bytes);
+	if (!mediaType) return refuse('invalid', 'Attach a PDF, PNG, JPEG or SVG file.', 'file');
+	const storageKey = await store.put(file.bytes);
+	try {
+		const { id } = db
+			.insert(modelAttachment)
+			.values({
+				modelId,
+				fileName: file.name.slice(0, 200) || 'attachment',
+				mediaType,
+				size_bytes: file.bytes.byteLength,
+				storageKey,
+				uploadedBy: viewer.id
+			})
+			.returning({ id: modelAttachment.id })
+			.get();
+		return { ok: true, id };
+	} catch (error) {
+		await store.remove(storageKey);
+		throw error;
+	}
+}
+
+export function getAttachmentFor(db: Db, viewer: SessionUser, attachmentId: string) {
+	const row = db.select().from(modelAttachment).where(eq(modelAttachment.id, attachmentId)).get();
+	if (!row) return undefined;
+	return getModelFor(db, viewer, row.modelId) ? row : undefined;
 }

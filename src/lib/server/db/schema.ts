@@ -11,6 +11,7 @@ import {
 import type { AdapterAccountType } from '@auth/sveltekit/adapters';
 import { ROLES, TEAM_KINDS } from '../../roles';
 import { MODEL_KINDS, SECTION_KINDS } from '../../calc/kinds';
+import { CAMPAIGN_STATES, type CampaignDefinition } from '../../schemas/campaign';
 
 const id = () =>
 	text('id')
@@ -177,4 +178,54 @@ export const scaleModel = sqliteTable(
 		createdAt: createdAt()
 	},
 	(t) => [uniqueIndex('scale_model_team_name').on(t.teamId, t.name)]
+);
+
+/** Drawings and photos of a model; the bytes live in attachment storage under `storageKey`. */
+export const modelAttachment = sqliteTable(
+	'model_attachment',
+	{
+		id: id(),
+		modelId: text('model_id')
+			.notNull()
+			.references(() => scaleModel.id, { onDelete: 'cascade' }),
+		fileName: text('file_name').notNull(),
+		mediaType: text('media_type').notNull(),
+		size_bytes: integer('size_bytes').notNull(),
+		storageKey: text('storage_key').notNull().unique(),
+		uploadedBy: text('uploaded_by').references(() => user.id, { onDelete: 'set null' }),
+		createdAt: createdAt()
+	},
+	(t) => [index('model_attachment_model').on(t.modelId)]
+);
+
+/**
+ * A test campaign: one model in one facility, with its air assumption and the matrix axes.
+ * The axes are one validated document (see $lib/schemas/campaign), stored as JSON.
+ */
+export const campaign = sqliteTable(
+	'campaign',
+	{
+		id: id(),
+		teamId: text('team_id')
+			.notNull()
+			.references(() => team.id, { onDelete: 'restrict' }),
+		ownerId: text('owner_id')
+			.notNull()
+			.references(() => user.id, { onDelete: 'restrict' }),
+		modelId: text('model_id')
+			.notNull()
+			.references(() => scaleModel.id, { onDelete: 'restrict' }),
+		facilityId: text('facility_id')
+			.notNull()
+			.references(() => facility.id, { onDelete: 'restrict' }),
+		state: text('state', { enum: CAMPAIGN_STATES }).notNull().default('draft'),
+		name: text('name').notNull(),
+		objective: text('objective').notNull(),
+		definition: text('definition', { mode: 'json' }).$type<CampaignDefinition>().notNull(),
+		createdAt: createdAt(),
+		updatedAt: integer('updated_at', { mode: 'timestamp_ms' })
+			.notNull()
+			.default(sql`(unixepoch('subsec') * 1000)`)
+	},
+	(t) => [index('campaign_team').on(t.teamId), index('campaign_facility').on(t.facilityId)]
 );

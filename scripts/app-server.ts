@@ -1,0 +1,76 @@
+/**
+ * Starts the built app (adapter-node's build/) on a free loopback port with a freshly seeded
+ * database of its own. Used by the end-to-end tests and the browser benchmarks.
+ */
+import { execFileSync, spawn } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdtempSync, rmSync } from 'node:fs';
+import { createServer } from 'node:net';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+
+function freePort(): Promise<number> {
+	return new Promise((resolve, reject) => {
+		const probe = createServer();
+		probe.once('error', reject);
+		probe.listen(0, '127.0.0.1', () => {
+			const address = probe.address();
+			probe.close(() =>
+				typeof address === 'object' && address ? resolve(address.port) : reject()
+			);
+		});
+	});
+}
+
+export type RunningApp = { baseUrl: string; databasePath: string; stop: () => Promise<void> };
+
+export async function startSeededApp({
+	quiet = false
+}: { quiet?: boolean } = {}): Promise<RunningApp> {
+	if (!existsSync('build/index.js'))
+		throw new Error('Run `vite build` first: build/index.js is missing.');
+	const dir = mkdtempSync(join(tmpdir(), 'tunnelwright-app-'));
+	const databasePath = join(dir, 'app.db');
+	const env = { ...process.env, DATABASE_URL: databasePath };
+	execFileSync(process.execPath, ['--import', 'tsx', 'scripts/seed.ts'], {
+		env,
+		stdio: quiet ? 'ignore' : 'inherit'
+	});
+
+	const port = await freePort();
+	const baseUrl = `http://127.0.0.1:${port}`;
+	const server = spawn(process.execPath, ['build'], {
+		env: {
+			...env,
+			HOST: '127.0.0.1',
+			PORT: String(port),
+			ORIGIN: baseUrl,
+			BODY_SIZE_LIMIT: '12M',
+			ATTACHMENTS_DIR: join(dir, 'attachments'),
+			AUTH_SECRET: randomBytes(32).toString('base64url')
+		},
+		stdio: ['ignore', quiet ? 'ignore' : 'inherit', 'inherit']
+	});
+
+	const deadline = Date.now() + 30_000;
+	for (;;) {
+		if (server.exitCode !== null) throw new Error(`The app exited with code ${server.exitCode}`);
+		const up = await fetch(`${baseUrl}/signin`, { redirect: 'manual' }).then(
+			(r) => r.status < 500,
+			() => false
+		);
+		if (up) break;
+		if (Date.now() > deadline) throw new Error(`The app did not answer at ${baseUrl} within 30 s`);
+		await new Promise((r) => setTimeout(r, 200));
+	}
+
+	return {
+		baseUrl,
+		databasePath,
+		stop: async () => {
+			server.kill('SIGTERM');
+			await new Promise((r) => server.once('exit', r));
+			rmSync(dir, { recursive: true, force: true });
+		}
+	};
+}

@@ -1,0 +1,148 @@
+import {
+	airState,
+	blockage,
+	isaAtmosphere,
+	uniformGrid,
+	type AirState,
+	type Blockage,
+	type FacilityEnvelope,
+	type FacilityTiming,
+	type MatrixPlan,
+	type ProbeGrid
+} from '../calc';
+import type { SectionKind } from '../calc/kinds';
+import type { CampaignDefinition, ProbeGridSpec } from '../schemas/campaign';
+
+/** What a campaign's figures need of its model (full-scale values as stored). */
+export type PlanModel = {
+	scaleDenominator: number;
+	fullScaleLength_m: number;
+	fullScaleWidth_m: number;
+	fullScaleHeight_m: number;
+	fullScaleFrontalArea_m2: number;
+	referenceLength_m: number;
+	dragCoefficient: number | null;
+	modelVolume_m3: number | null;
+};
+
+/** What a campaign's figures need of its facility. */
+export type PlanFacility = FacilityEnvelope &
+	FacilityTiming & {
+		sectionKind: SectionKind;
+		sectionWidth_m: number;
+		sectionHeight_m: number;
+		cornerFillet_m: number;
+		blockageCaution: number;
+		blockageLimit: number;
+	};
+
+export type CampaignPlan = {
+	plan: MatrixPlan;
+	tunnelAir: AirState;
+	fullScaleAir: AirState;
+	blockage: Blockage;
+	envelope: FacilityEnvelope;
+	timing: FacilityTiming;
+	modelLength_m: number;
+	modelWidth_m: number;
+	modelHeight_m: number;
+};
+
+export function probeGrid(spec: ProbeGridSpec): ProbeGrid {
+	return spec.mode === 'uniform'
+		? uniformGrid({
+				rows: spec.rows,
+				columns: spec.columns,
+				rowSpacing_m: spec.rowSpacing_m,
+				columnSpacing_m: spec.columnSpacing_m,
+				firstRow_m: spec.firstRow_m,
+				firstColumn_m: spec.firstColumn_m
+			})
+		: { y_m: spec.y_m, z_m: spec.z_m };
+}
+
+/** A plane's downstream distance in metres, given in model lengths or millimetres. */
+export function downstreamMetres(
+	d: CampaignDefinition['planes'][number]['downstream'],
+	modelLength_m: number
+): number {
+	return d.unit === 'mm' ? d.value / 1000 : d.value * modelLength_m;
+}
+
+export function tunnelAirOf(air: CampaignDefinition['air']): AirState {
+	return air.model === 'isa'
+		? isaAtmosphere(air.siteAltitude_m, { temperatureOffset_K: air.temperatureOffset_K })
+		: airState({
+				temperature_K: air.temperature_K,
+				pressure_Pa: air.pressure_Pa,
+				relativeHumidity: air.relativeHumidity
+			});
+}
+
+/**
+ * Turns a campaign's definition, model and facility into the calculation core's inputs: lengths
+ * to model scale, downstream distances to metres, the tunnel air, and the blockage correction
+ * that scales every row's q. Throws CalcInputError for values the core refuses.
+ */
+export function campaignPlan(
+	def: CampaignDefinition,
+	model: PlanModel,
+	facility: PlanFacility
+): CampaignPlan {
+	const scale = 1 / model.scaleDenominator;
+	const modelLength_m = model.fullScaleLength_m * scale;
+	const tunnelAir = tunnelAirOf(def.air);
+	const correction = blockage({
+		frontalArea_m2: model.fullScaleFrontalArea_m2 * scale * scale,
+		section: {
+			kind: facility.sectionKind,
+			width_m: facility.sectionWidth_m,
+			height_m: facility.sectionHeight_m,
+			cornerFillet_m: facility.cornerFillet_m
+		},
+		dragCoefficient: model.dragCoefficient ?? undefined,
+		modelVolume_m3: model.modelVolume_m3 ?? undefined,
+		modelLength_m,
+		limits: { caution: facility.blockageCaution, limit: facility.blockageLimit }
+	});
+	const plan: MatrixPlan = {
+		configurations: def.configurations.map((c) => ({ id: c.id, baseline: c.baseline })),
+		speeds_mps: def.speeds_mps,
+		yawAngles_deg: def.yawAngles_deg,
+		planes: def.planes.map((p) => ({
+			id: p.id,
+			downstream_m:
+				p.downstream.unit === 'mm' ? p.downstream.value / 1000 : p.downstream.value * modelLength_m,
+			grid: probeGrid(p.grid)
+		})),
+		dwellPerPoint_s: def.dwellPerPoint_s,
+		repeats: def.repeats,
+		modelReferenceLength_m: model.referenceLength_m * scale,
+		tunnelAir,
+		dynamicPressureFactor: correction.dynamicPressureFactor
+	};
+	return {
+		plan,
+		tunnelAir,
+		fullScaleAir: isaAtmosphere(def.fullScaleAltitude_m),
+		blockage: correction,
+		envelope: {
+			minSpeed_mps: facility.minSpeed_mps,
+			maxSpeed_mps: facility.maxSpeed_mps,
+			maxDynamicPressure_Pa: facility.maxDynamicPressure_Pa,
+			yawMin_deg: facility.yawMin_deg,
+			yawMax_deg: facility.yawMax_deg
+		},
+		timing: {
+			settling_s: facility.settling_s,
+			traverseMove_s: facility.traverseMove_s,
+			yawChange_s: facility.yawChange_s,
+			modelChange_s: facility.modelChange_s,
+			setUp_s: facility.setUp_s,
+			tearDown_s: facility.tearDown_s
+		},
+		modelLength_m,
+		modelWidth_m: model.fullScaleWidth_m * scale,
+		modelHeight_m: model.fullScaleHeight_m * scale
+	};
+}

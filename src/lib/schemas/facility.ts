@@ -1,0 +1,137 @@
+import { z } from 'zod';
+import { DEFAULT_BLOCKAGE_LIMITS } from '../calc/blockage';
+import { SECTION_KINDS } from '../calc/kinds';
+
+export const WEEKDAYS = ['mon', 'tue', 'wed', 'thu', 'fri', 'sat', 'sun'] as const;
+export type Weekday = (typeof WEEKDAYS)[number];
+
+const clock = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, { error: 'Use 24-hour hh:mm.' });
+const length_m = (what: string) =>
+	z
+		.number({ error: `Enter the ${what}.` })
+		.positive({ error: `The ${what} must be above 0.` })
+		.max(1000);
+const seconds = z
+	.number()
+	.min(0)
+	.max(7 * 24 * 3600);
+
+function isTimeZone(zone: string): boolean {
+	try {
+		new Intl.DateTimeFormat('en', { timeZone: zone });
+		return true;
+	} catch {
+		return false;
+	}
+}
+
+/** One schema for the facility form, the JSON API and the database write; SI throughout. */
+export const facilitySchema = z
+	.object({
+		name: z.string().trim().min(1, { error: 'Name the tunnel.' }).max(120),
+		sectionKind: z.enum(SECTION_KINDS),
+		sectionWidth_m: length_m('section width'),
+		sectionHeight_m: length_m('section height'),
+		cornerFillet_m: z.number().min(0).max(100),
+		sectionLength_m: length_m('section length'),
+		minSpeed_mps: z.number().min(0).max(300),
+		maxSpeed_mps: z.number().positive().max(300),
+		maxDynamicPressure_Pa: z.number().positive().max(100_000),
+		yawMin_deg: z.number().min(-180).max(180),
+		yawMax_deg: z.number().min(-180).max(180),
+		blockageCaution: z.number().min(0).max(1),
+		blockageLimit: z.number().min(0).max(1),
+		settling_s: seconds,
+		traverseMove_s: seconds,
+		yawChange_s: seconds,
+		modelChange_s: seconds,
+		setUp_s: seconds,
+		tearDown_s: seconds,
+		openingHours: z.partialRecord(z.enum(WEEKDAYS), z.tuple([clock, clock])),
+		timeZone: z
+			.string()
+			.refine(isTimeZone, { error: 'Use an IANA time zone such as Europe/Berlin.' }),
+		hourlyRate: z
+			.string()
+			.trim()
+			.regex(/^\d{1,7}(\.\d{1,2})?$/, { error: 'Enter an amount such as 780.00.' }),
+		currency: z
+			.string()
+			.trim()
+			.toUpperCase()
+			.regex(/^[A-Z]{3}$/, { error: 'Use a three-letter code such as EUR.' }),
+		siteAltitude_m: z.number().min(-500).max(6000),
+		typicalTemperature_K: z.number().min(233.15).max(333.15),
+		typicalRelativeHumidity: z.number().min(0).max(1)
+	})
+	.superRefine((f, ctx) => {
+		if (f.minSpeed_mps >= f.maxSpeed_mps)
+			ctx.addIssue({
+				code: 'custom',
+				path: ['maxSpeed_mps'],
+				message: 'The maximum speed must be above the minimum.'
+			});
+		if (f.yawMin_deg > f.yawMax_deg)
+			ctx.addIssue({
+				code: 'custom',
+				path: ['yawMax_deg'],
+				message: 'The yaw range ends below where it starts.'
+			});
+		if (f.blockageCaution > f.blockageLimit)
+			ctx.addIssue({
+				code: 'custom',
+				path: ['blockageLimit'],
+				message: 'The limit must be at or above the caution level.'
+			});
+		if (f.cornerFillet_m * 2 >= Math.min(f.sectionWidth_m, f.sectionHeight_m))
+			ctx.addIssue({
+				code: 'custom',
+				path: ['cornerFillet_m'],
+				message: 'The fillets must be less than half the smaller side.'
+			});
+		for (const [day, hours] of Object.entries(f.openingHours)) {
+			if (hours && hours[0] >= hours[1])
+				ctx.addIssue({
+					code: 'custom',
+					path: ['openingHours', day],
+					message: 'Closing time must be after opening time.'
+				});
+		}
+	});
+
+export type FacilityInput = z.infer<typeof facilitySchema>;
+
+/** A new facility's starting values: a closed section with the usual limits for its kind. */
+export function facilityDefaults(): FacilityInput {
+	const limits = DEFAULT_BLOCKAGE_LIMITS.closed;
+	const weekday: [string, string] = ['08:00', '18:00'];
+	return {
+		name: '',
+		sectionKind: 'closed',
+		sectionWidth_m: 2,
+		sectionHeight_m: 1.5,
+		cornerFillet_m: 0,
+		sectionLength_m: 5,
+		minSpeed_mps: 5,
+		maxSpeed_mps: 50,
+		maxDynamicPressure_Pa: 1600,
+		yawMin_deg: -15,
+		yawMax_deg: 15,
+		blockageCaution: limits.caution,
+		blockageLimit: limits.limit,
+		// Planning times: common practice, no source (domain primer §6); each facility sets its own.
+		settling_s: 60,
+		traverseMove_s: 5,
+		yawChange_s: 45,
+		modelChange_s: 1800,
+		setUp_s: 3 * 3600,
+		tearDown_s: 2 * 3600,
+		openingHours: { mon: weekday, tue: weekday, wed: weekday, thu: weekday, fri: weekday },
+		timeZone: 'Europe/Berlin',
+		hourlyRate: '500.00',
+		currency: 'EUR',
+		siteAltitude_m: 0,
+		typicalTemperature_K: 293.15,
+		typicalRelativeHumidity: 0.5
+	};
+}

@@ -1,0 +1,42 @@
+import type { SessionUser } from '../roles';
+import type { CampaignState } from '../schemas/campaign';
+
+/**
+ * Who may see and change what. Clients' work is confidential from each other, so team
+ * membership gates every model and campaign; facility staff read campaigns once submitted.
+ */
+export type CampaignAccessFacts = { teamId: string; ownerId: string; state: CampaignState };
+
+const isAdmin = (u: SessionUser) => u.roles.includes('admin');
+const inTeam = (u: SessionUser, teamId: string) => u.teams.some((t) => t.id === teamId);
+
+export function canReadModel(viewer: SessionUser, model: { teamId: string }): boolean {
+	return (
+		isAdmin(viewer) || (viewer.roles.includes('aerodynamicist') && inTeam(viewer, model.teamId))
+	);
+}
+
+export function canWriteModel(viewer: SessionUser, model: { teamId: string }): boolean {
+	return canReadModel(viewer, model);
+}
+
+export function canReadCampaign(viewer: SessionUser, c: CampaignAccessFacts): boolean {
+	if (isAdmin(viewer)) return true;
+	if (viewer.roles.includes('aerodynamicist') && inTeam(viewer, c.teamId)) return true;
+	const staff = viewer.roles.includes('reviewer') || viewer.roles.includes('operator');
+	return staff && c.state !== 'draft';
+}
+
+/** Only the owner edits, and only while the campaign is a draft. */
+export function canEditCampaign(viewer: SessionUser, c: CampaignAccessFacts): boolean {
+	return (
+		c.state === 'draft' &&
+		c.ownerId === viewer.id &&
+		viewer.roles.includes('aerodynamicist') &&
+		inTeam(viewer, c.teamId)
+	);
+}
+
+export function canEditFacilities(viewer: SessionUser): boolean {
+	return isAdmin(viewer) || viewer.roles.includes('operator');
+}

@@ -1,0 +1,30 @@
+import { fail, redirect, type RequestEvent } from '@sveltejs/kit';
+import { setError, superValidate, type SuperValidated } from 'sveltekit-superforms';
+import { zod4 } from 'sveltekit-superforms/adapters';
+import { campaignSchema, type CampaignInput } from '../schemas/campaign';
+import type { Refusal } from './outcome';
+import { STATUS_OF_REFUSAL } from './outcome';
+
+const FIELDS = new Set(['name', 'modelId', 'facilityId', 'speeds_mps', 'yawAngles_deg']);
+
+/**
+ * Validates a posted campaign form and saves it with `save`; refusals land on their field so
+ * the user sees them beside what they typed, and nothing is written.
+ */
+export async function saveCampaignForm(
+	event: RequestEvent,
+	save: (input: CampaignInput) => { ok: true; id?: string } | Refusal,
+	redirectTo: (id: string | undefined) => string
+) {
+	const form: SuperValidated<CampaignInput> = await superValidate(
+		event.request,
+		zod4(campaignSchema)
+	);
+	if (!form.valid) return fail(400, { form });
+	const saved = save(form.data);
+	if (!saved.ok) {
+		const field = saved.field && FIELDS.has(saved.field) ? (saved.field as 'name') : '';
+		return setError(form, field, saved.message, { status: STATUS_OF_REFUSAL[saved.code] });
+	}
+	redirect(303, redirectTo(saved.id));
+}

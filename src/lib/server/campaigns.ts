@@ -1,0 +1,168 @@
+import { desc, eq } from 'drizzle-orm';
+import type { SessionUser } from '../roles';
+import type { CampaignDefinition, CampaignInput } from '../schemas/campaign';
+import { canEditCampaign, canReadCampaign } from './access';
+import type { Db } from './db/open';
+import { campaign, facility, scaleModel, team, user } from './db/schema';
+import { getFacility, type Facility } from './facilities';
+import { getModelFor, type ScaleModel } from './models';
+import { refuse, type Outcome } from './outcome';
+
+export type Campaign = typeof campaign.$inferSelect;
+export type CampaignListing = Pick<
+	Campaign,
+	'id' | 'name' | 'state' | 'updatedAt' | 'teamId' | 'ownerId'
+> & {
+	modelName: string;
+	facilityName: string;
+	teamName: string;
+	ownerName: string;
+	definition: CampaignDefinition;
+};
+export type CampaignDetail = Campaign & {
+	model: ScaleModel;
+	facility: Facility;
+	ownerName: string;
+};
+
+export function listCampaignsFor(db: Db, viewer: SessionUser): CampaignListing[] {
+	return db
+		.select({
+			id: campaign.id,
+			name: campaign.name,
+			state: campaign.state,
+			updatedAt: campaign.updatedAt,
+			teamId: campaign.teamId,
+			ownerId: campaign.ownerId,
+			definition: campaign.definition,
+			modelName: scaleModel.name,
+			facilityName: facility.name,
+			teamName: team.name,
+			ownerName: user.name
+		})
+		.from(campaign)
+		.innerJoin(scaleModel, eq(scaleModel.id, campaign.modelId))
+		.innerJoin(facility, eq(facility.id, campaign.facilityId))
+		.innerJoin(team, eq(team.id, campaign.teamId))
+		.innerJoin(user, eq(user.id, campaign.ownerId))
+		.orderBy(desc(campaign.updatedAt))
+		.all()
+		.filter((c) => canReadCampaign(viewer, c))
+		.map((c) => ({ ...c, ownerName: c.ownerName ?? '' }));
+}
+
+/** The campaign with its model and facility if the viewer may read it; else undefined (404). */
+export function getCampaignFor(
+	db: Db,
+	viewer: SessionUser,
+	id: string
+): CampaignDetail | undefined {
+	const row = db.select().from(campaign).where(eq(campaign.id, id)).get();
+	if (!row || !canReadCampaign(viewer, row)) return undefined;
+	const model = db
+		.select({ model: scaleModel, teamName: team.name })
+		.from(scaleModel)
+		.innerJoin(team, eq(team.id, scaleModel.teamId))
+		.where(eq(scaleModel.id, row.modelId))
+		.get()!;
+	const owner = db.select({ name: user.name }).from(user).where(eq(user.id, row.ownerId)).get();
+	return {
+		...row,
+		model: { ...model.model, teamName: model.teamName },
+		facility: getFacility(db, row.facilityId)!,
+		ownerName: owner?.name ?? ''
+	};
+}
+
+function split({ name, objective, modelId, facilityId, ...definition }: CampaignInput) {
+	return { name, objective, modelId, facilityId, definition };
+}
+
+/** Checks the campaign against the chosen facility; the first misfit names its field. */
+function facilityMisfit(input: CampaignInput, f: Facility) {
+	const outside = input.speeds_mps.find((v) => v < f.minSpeed_mps || v > f.maxSpeed_mps);
+	if (outside !== undefined) {
+		return refuse(
+			'invalid',
+			`${outside} m/s is outside ${f.name}'s range of ${f.minSpeed_mps}–${f.maxSpeed_mps} m/s.`,
+			'speeds_mps'
+		);
+	}
+	const yaw = input.yawAngles_deg.find((a) => a < f.yawMin_deg || a > f.yawMax_deg);
+	if (yaw !== undefined) {
+		return refuse(
+			'invalid',
+			`Yaw ${yaw}° is outside ${f.name}'s turntable range of ${f.yawMin_deg}° to ${f.yawMax_deg}°.`,
+			'yawAngles_deg'
+		);
+	}
+	return null;
+}
+
+function resolveLinks(db: Db, viewer: SessionUser, input: CampaignInput) {
+	const model = getModelFor(db, viewer, input.modelId);
+	if (!model) return refuse('invalid', 'Choose one of your team’s models.', 'modelId');
+	const f = getFacility(db, input.facilityId);
+	if (!f) return refuse('invalid', 'Choose a facility.', 'facilityId');
+	return facilityMisfit(input, f) ?? { ok: true as const, model, facility: f };
+}
+
+export function createCampaign(
+	db: Db,
+	viewer: SessionUser,
+	input: CampaignInput
+): Outcome<{ id: string }> {
+	if (!viewer.roles.includes('aerodynamicist'))
+		return refuse('forbidden', 'Only aerodynamicists draft campaigns.');
+	const links = resolveLinks(db, viewer, input);
+	if (!links.ok) return links;
+	const { id } = db
+		.insert(campaign)
+		.values({ ...split(input), teamId: links.model.teamId, ownerId: viewer.id })
+		.returning({ id: campaign.id })
+		.get();
+	return { ok: true, id };
+}
+
+export function updateCampaign(
+	db: Db,
+	viewer: SessionUser,
+	id: string,
+	input: CampaignInput
+): Outcome {
+	const existing = db.select().from(campaign).where(eq(campaign.id, id)).get();
+	if (!existing || !canReadCampaign(viewer, existing))
+		return refuse('not-found', 'No such campaign.');
+	if (!canEditCampaign(viewer, existing))
+		return refuse('forbidden', 'Only the owner can change a draft.');
+	const links = resolveLinks(db, viewer, input);
+	if (!links.ok) return links;
+	if (links.model.teamId !== existing.teamId)
+		return refuse('invalid', 'The model must belong to the campaign’s team.', 'modelId');
+	db.update(campaign)
+		.set({ ...split(input), updatedAt: new Date() })
+		.where(eq(campaign.id, id))
+		.run();
+	return { ok: true };
+}
+
+export function deleteCampaign(db: Db, viewer: SessionUser, id: string): Outcome {
+	const existing = db.select().from(campaign).where(eq(campaign.id, id)).get();
+	if (!existing || !canReadCampaign(viewer, existing))
+		return refuse('not-found', 'No such campaign.');
+	if (!canEditCampaign(viewer, existing))
+		return refuse('forbidden', 'Only the owner can delete a draft.');
+	db.delete(campaign).where(eq(campaign.id, id)).run();
+	return { ok: true };
+}
+
+/** The editable form values of a stored campaign. */
+export function campaignInput(c: Campaign): CampaignInput {
+	return {
+		name: c.name,
+		objective: c.objective,
+		modelId: c.modelId,
+		facilityId: c.facilityId,
+		...c.definition
+	};
+}

@@ -1,0 +1,36 @@
+import { error } from '@sveltejs/kit';
+import { superValidate } from 'sveltekit-superforms';
+import { zod4 } from 'sveltekit-superforms/adapters';
+import { campaignSchema } from '$lib/schemas/campaign';
+import { canEditCampaign } from '$lib/server/access';
+import { saveCampaignForm } from '$lib/server/campaign-form';
+import { campaignInput, getCampaignFor, updateCampaign } from '$lib/server/campaigns';
+import { listFacilities } from '$lib/server/facilities';
+import { requireRole } from '$lib/server/guards';
+import { listModelsFor } from '$lib/server/models';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async ({ locals, params }) => {
+	const user = requireRole(locals, 'aerodynamicist');
+	const found = getCampaignFor(locals.db, user, params.id);
+	if (!found) error(404, { message: 'No such campaign.' });
+	if (!canEditCampaign(user, found)) error(403, { message: 'Only the owner can change a draft.' });
+	return {
+		id: found.id,
+		name: found.name,
+		models: listModelsFor(locals.db, user).filter((m) => m.teamId === found.teamId),
+		facilities: listFacilities(locals.db),
+		form: await superValidate(campaignInput(found), zod4(campaignSchema))
+	};
+};
+
+export const actions: Actions = {
+	default: async (event) => {
+		const user = requireRole(event.locals, 'aerodynamicist');
+		return saveCampaignForm(
+			event,
+			(input) => updateCampaign(event.locals.db, user, event.params.id, input),
+			() => `/campaigns/${event.params.id}`
+		);
+	}
+};

@@ -1,0 +1,21 @@
+import { error } from '@sveltejs/kit';
+import { runSheet } from '$lib/campaign/run-sheet';
+import { figuresOf } from '$lib/server/campaign-export';
+import { getCampaignFor } from '$lib/server/campaigns';
+import { requireUser } from '$lib/server/guards';
+import type { PageServerLoad } from './$types';
+
+export const load: PageServerLoad = ({ locals, params }) => {
+	const user = requireUser(locals);
+	const found = getCampaignFor(locals.db, user, params.id);
+	if (!found) error(404, { message: 'No such campaign.' });
+	const figures = figuresOf(found);
+	return {
+		campaign: found,
+		sheet: runSheet(figures.plan, figures.timing),
+		speeds: figures.speeds,
+		tunnelAir: figures.tunnelAir,
+		findings: figures.findings,
+		printedAt: new Date().toISOString().slice(0, 16).replace('T', ' ')
+	};
+};

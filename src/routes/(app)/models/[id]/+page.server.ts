@@ -1,0 +1,34 @@
+import { error, fail } from '@sveltejs/kit';
+import { attachmentStore } from '$lib/server/attachments';
+import { requireRole } from '$lib/server/guards';
+import { addAttachment, getModelFor, listAttachments } from '$lib/server/models';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = ({ locals, params }) => {
+	const user = requireRole(locals, 'aerodynamicist', 'admin');
+	const model = getModelFor(locals.db, user, params.id);
+	if (!model) error(404, { message: 'No such model.' });
+	return {
+		model,
+		attachments: listAttachments(locals.db, model.id),
+		canEdit: user.roles.includes('aerodynamicist')
+	};
+};
+
+export const actions: Actions = {
+	attach: async ({ locals, params, request }) => {
+		const user = requireRole(locals, 'aerodynamicist');
+		const file = (await request.formData()).get('file');
+		if (!(file instanceof File) || file.size === 0)
+			return fail(400, { attachError: 'Choose a file to attach.' });
+		const added = await addAttachment(locals.db, attachmentStore(), user, params.id, {
+			name: file.name,
+			bytes: new Uint8Array(await file.arrayBuffer())
+		});
+		if (!added.ok) {
+			if (added.code === 'not-found') error(404, { message: added.message });
+			return fail(400, { attachError: added.message });
+		}
+		return { attached: file.name };
+	}
+};

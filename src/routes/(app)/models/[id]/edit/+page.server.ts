@@ -1,0 +1,35 @@
+import { error, fail, redirect } from '@sveltejs/kit';
+import { setError, superValidate } from 'sveltekit-superforms';
+import { zod4 } from 'sveltekit-superforms/adapters';
+import { scaleModelSchema } from '$lib/schemas/model';
+import { requireRole } from '$lib/server/guards';
+import { getModelFor, updateModel } from '$lib/server/models';
+import { STATUS_OF_REFUSAL } from '$lib/server/outcome';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async ({ locals, params }) => {
+	const user = requireRole(locals, 'aerodynamicist');
+	const model = getModelFor(locals.db, user, params.id);
+	if (!model) error(404, { message: 'No such model.' });
+	return {
+		name: model.name,
+		teams: user.teams,
+		form: await superValidate(model, zod4(scaleModelSchema))
+	};
+};
+
+export const actions: Actions = {
+	default: async ({ locals, params, request }) => {
+		const user = requireRole(locals, 'aerodynamicist');
+		const form = await superValidate(request, zod4(scaleModelSchema));
+		if (!form.valid) return fail(400, { form });
+		const saved = updateModel(locals.db, user, params.id, form.data);
+		if (!saved.ok) {
+			if (saved.code === 'not-found') error(404, { message: saved.message });
+			return setError(form, saved.field === 'teamId' ? 'teamId' : 'name', saved.message, {
+				status: STATUS_OF_REFUSAL[saved.code]
+			});
+		}
+		redirect(303, `/models/${params.id}`);
+	}
+};

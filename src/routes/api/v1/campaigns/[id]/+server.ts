@@ -1,0 +1,27 @@
+import { error, json } from '@sveltejs/kit';
+import { campaignSchema } from '$lib/schemas/campaign';
+import { readJson, refusalResponse } from '$lib/server/api';
+import { deleteCampaign, getCampaignFor, updateCampaign } from '$lib/server/campaigns';
+import { requireRole, requireUser } from '$lib/server/guards';
+import type { RequestHandler } from './$types';
+
+export const GET: RequestHandler = ({ locals, params }) => {
+	const user = requireUser(locals);
+	const found = getCampaignFor(locals.db, user, params.id);
+	if (!found) error(404, { message: 'No such campaign.' });
+	return json({ campaign: found });
+};
+
+export const PUT: RequestHandler = async (event) => {
+	const user = requireRole(event.locals, 'aerodynamicist');
+	const body = await readJson(event, campaignSchema);
+	if (!body.ok) return body.response;
+	const saved = updateCampaign(event.locals.db, user, event.params.id, body.data);
+	return saved.ok ? json({ id: event.params.id }) : refusalResponse(saved);
+};
+
+export const DELETE: RequestHandler = ({ locals, params }) => {
+	const user = requireRole(locals, 'aerodynamicist');
+	const removed = deleteCampaign(locals.db, user, params.id);
+	return removed.ok ? new Response(null, { status: 204 }) : refusalResponse(removed);
+};

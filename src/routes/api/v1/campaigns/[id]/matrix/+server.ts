@@ -1,0 +1,28 @@
+import { error } from '@sveltejs/kit';
+import { z } from 'zod';
+import { expandMatrix } from '$lib/calc';
+import { apiError, calculationResponse, fieldMessages } from '$lib/server/api';
+import { figuresOf } from '$lib/server/campaign-export';
+import { getCampaignFor } from '$lib/server/campaigns';
+import { requireUser } from '$lib/server/guards';
+import type { RequestHandler } from './$types';
+
+const pageQuery = z.object({
+	offset: z.coerce.number().int().min(0).default(0),
+	limit: z.coerce.number().int().min(1).max(5000).default(500)
+});
+
+/** The campaign's matrix rows with their derived quantities, a page at a time. */
+export const GET: RequestHandler = ({ locals, params, url }) => {
+	const user = requireUser(locals);
+	const found = getCampaignFor(locals.db, user, params.id);
+	if (!found) error(404, { message: 'No such campaign.' });
+	const page = pageQuery.safeParse(Object.fromEntries(url.searchParams));
+	if (!page.success)
+		return apiError(400, 'invalid', 'Bad paging parameters.', fieldMessages(page.error));
+	const { offset, limit } = page.data;
+	return calculationResponse(() => {
+		const rows = expandMatrix(figuresOf(found).plan);
+		return { rowCount: rows.length, offset, limit, rows: rows.slice(offset, offset + limit) };
+	});
+};

@@ -1,0 +1,21 @@
+import { error, json } from '@sveltejs/kit';
+import { scaleModelSchema } from '$lib/schemas/model';
+import { readJson, refusalResponse } from '$lib/server/api';
+import { requireRole } from '$lib/server/guards';
+import { getModelFor, listAttachments, updateModel } from '$lib/server/models';
+import type { RequestHandler } from './$types';
+
+export const GET: RequestHandler = ({ locals, params }) => {
+	const user = requireRole(locals, 'aerodynamicist', 'admin');
+	const model = getModelFor(locals.db, user, params.id);
+	if (!model) error(404, { message: 'No such model.' });
+	return json({ model, attachments: listAttachments(locals.db, model.id) });
+};
+
+export const PUT: RequestHandler = async (event) => {
+	const user = requireRole(event.locals, 'aerodynamicist');
+	const body = await readJson(event, scaleModelSchema);
+	if (!body.ok) return body.response;
+	const saved = updateModel(event.locals.db, user, event.params.id, body.data);
+	return saved.ok ? json({ id: event.params.id }) : refusalResponse(saved);
+};
