@@ -4,6 +4,7 @@
  */
 import type { Role } from '../src/lib/roles';
 import type { CampaignInput } from '../src/lib/schemas/campaign';
+import type { DecisionInput } from '../src/lib/schemas/review';
 import type { facility, scaleModel } from '../src/lib/server/db/schema';
 
 export const DEMO_PASSWORD = 'steady-flow-demo';
@@ -348,6 +349,45 @@ export const DEMO_CAMPAIGNS: CampaignSeed[] = [
 			],
 			dwellPerPoint_s: 20,
 			repeats: 3
+		}
+	}
+];
+
+/** Where the demo's e-mailed links point: the address `npm run demo` serves. */
+export const DEMO_ORIGIN = 'http://localhost:3000';
+
+/** The review history the demo starts with: one waiting, one returned with notes, one approved. */
+export const DEMO_REVIEW_STORY: {
+	campaign: string;
+	owner: string;
+	decision?: Omit<DecisionInput, 'revision'>;
+}[] = [
+	{ campaign: 'AM-7 rear-wing wake survey', owner: 'aero@demo.test' },
+	{
+		campaign: 'AM-3 speed sweep',
+		owner: 'aero@demo.test',
+		decision: {
+			verdict: 'return',
+			summary: 'Good sweep, but the top end needs a second look before we book it.',
+			notes: [
+				{
+					anchor: { kind: 'speed', speed_mps: 55 },
+					text: 'The wake rake on this plane is cleared to 50 m/s; drop 55 m/s or ask for the stiffened rake.'
+				},
+				{
+					anchor: { kind: 'plane', id: 'wake' },
+					text: 'Add a row at 230 mm so the roof shear layer is inside the grid.'
+				}
+			]
+		}
+	},
+	{
+		campaign: 'Heron-4 forward-flight wake',
+		owner: 'aero2@demo.test',
+		decision: {
+			verdict: 'approve',
+			summary: 'Fits the open jet comfortably; rotor guards confirmed on the model.',
+			notes: []
 		}
 	}
 ];

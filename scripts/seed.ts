@@ -2,6 +2,8 @@ import { and, eq } from 'drizzle-orm';
 import { hashPassword } from '../src/lib/server/auth/password';
 import { databasePathFromEnv, migrateDatabase, openDatabase } from '../src/lib/server/db/open';
 import { campaignSchema } from '../src/lib/schemas/campaign';
+import { decideRevision, submitCampaign } from '../src/lib/server/review';
+import { sessionUser } from '../src/lib/server/users';
 import {
 	campaign,
 	facility,
@@ -17,7 +19,9 @@ import {
 	DEMO_CAMPAIGNS,
 	DEMO_FACILITIES,
 	DEMO_MODELS,
+	DEMO_ORIGIN,
 	DEMO_PASSWORD,
+	DEMO_REVIEW_STORY,
 	STAFF_TEAM
 } from './demo-scenario';
 
@@ -108,14 +112,40 @@ db.transaction((tx) => {
 			ownerId: userIds.get(seed.owner)!
 		};
 		const existing = tx
-			.select({ id: campaign.id })
+			.select({ id: campaign.id, lastRevision: campaign.lastRevision })
 			.from(campaign)
 			.where(and(eq(campaign.teamId, model.teamId), eq(campaign.name, name)))
 			.get();
-		if (existing) tx.update(campaign).set(values).where(eq(campaign.id, existing.id)).run();
-		else tx.insert(campaign).values(values).run();
+		// A campaign already in review keeps its history; only drafts never submitted follow the scenario.
+		if (!existing) tx.insert(campaign).values(values).run();
+		else if (existing.lastRevision === 0)
+			tx.update(campaign).set(values).where(eq(campaign.id, existing.id)).run();
 	}
 });
+
+// The review story of the scenario, told through the same workflow functions the app uses.
+const person = (email: string) => {
+	const row = db.select().from(user).where(eq(user.email, email)).get()!;
+	return sessionUser(db, row.id, row.sessionVersion)!;
+};
+const reviewer = person('reviewer@demo.test');
+for (const step of DEMO_REVIEW_STORY) {
+	const c = db.select().from(campaign).where(eq(campaign.name, step.campaign)).get()!;
+	if (c.lastRevision > 0) continue;
+	const owner = person(step.owner);
+	const submitted = submitCampaign(db, owner, c.id, DEMO_ORIGIN);
+	if (!submitted.ok) throw new Error(`${step.campaign}: ${submitted.message}`);
+	if (step.decision) {
+		const decided = decideRevision(
+			db,
+			reviewer,
+			c.id,
+			{ revision: submitted.revision, ...step.decision },
+			DEMO_ORIGIN
+		);
+		if (!decided.ok) throw new Error(`${step.campaign}: ${decided.message}`);
+	}
+}
 
 db.$client.close();
 console.log(

@@ -5,11 +5,12 @@ import { ATTACHMENT_MAX_BYTES } from '$lib/schemas/model';
 import { authHandle } from '$lib/server/auth';
 import { retryAfterSeconds, throttleKeys } from '$lib/server/auth/throttle';
 import { getDb } from '$lib/server/db';
+import { startMail } from '$lib/server/mail';
 import { sessionUser } from '$lib/server/users';
 
-/** Open and migrate the database before the first request is served. */
-export const init: ServerInit = () => {
-	getDb();
+/** Open and migrate the database and start mail delivery before the first request is served. */
+export const init: ServerInit = async () => {
+	await startMail(getDb());
 };
 
 const attachDatabase: Handle = ({ event, resolve }) => {

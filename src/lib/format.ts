@@ -26,3 +26,8 @@ const SECTION_KIND_LABELS = {
 export function sectionKindLabel(kind: keyof typeof SECTION_KIND_LABELS): string {
 	return SECTION_KIND_LABELS[kind];
 }
+
+/** A moment as "2026-12-01 09:30", in UTC. */
+export function utcMinute(moment: Date | string | number): string {
+	return new Date(moment).toISOString().slice(0, 16).replace('T', ' ');
+}

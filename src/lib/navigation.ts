@@ -1,7 +1,14 @@
 import type { Role } from './roles';
 
 export type NavItem = {
-	href: '/campaigns' | '/models' | '/review' | '/operations' | '/facilities' | '/admin';
+	href:
+		| '/campaigns'
+		| '/models'
+		| '/review'
+		| '/operations'
+		| '/facilities'
+		| '/admin'
+		| '/admin/outbox';
 	label: string;
 	roles: readonly Role[];
 };
@@ -17,7 +24,8 @@ export const NAV_ITEMS: readonly NavItem[] = [
 		label: 'Facilities',
 		roles: ['aerodynamicist', 'reviewer', 'operator', 'admin']
 	},
-	{ href: '/admin', label: 'People', roles: ['admin'] }
+	{ href: '/admin', label: 'People', roles: ['admin'] },
+	{ href: '/admin/outbox', label: 'Outbox', roles: ['admin'] }
 ];
 
 export function navFor(roles: readonly Role[]): NavItem[] {

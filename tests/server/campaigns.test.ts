@@ -22,7 +22,7 @@ describe('who reads and edits a campaign', () => {
 		roles,
 		teams
 	});
-	const draft = { teamId: 'A', ownerId: 'owner', state: 'draft' as const };
+	const draft = { teamId: 'A', ownerId: 'owner', state: 'draft' as const, lastRevision: 0 };
 
 	it.each<[string, SessionUser, boolean, boolean]>([
 		['the owner', as(['aerodynamicist'], 'owner'), true, true],
@@ -40,6 +40,18 @@ describe('who reads and edits a campaign', () => {
 	])('%s: read %s, edit %s', (_, viewer, read, edit) => {
 		expect(canReadCampaign(viewer, draft)).toBe(read);
 		expect(canEditCampaign(viewer, draft)).toBe(edit);
+	});
+
+	it('shows facility staff a campaign once it has been submitted, its later drafts too', () => {
+		const submitted = { ...draft, state: 'in-review' as const, lastRevision: 1 };
+		const returned = { ...draft, lastRevision: 1 };
+		for (const role of ['reviewer', 'operator'] as const) {
+			expect(canReadCampaign(as([role], 'staff', []), submitted)).toBe(true);
+			expect(canReadCampaign(as([role], 'staff', []), returned)).toBe(true);
+			expect(canEditCampaign(as([role], 'staff', []), returned)).toBe(false);
+		}
+		expect(canEditCampaign(as(['aerodynamicist'], 'owner'), submitted)).toBe(false);
+		expect(canEditCampaign(as(['aerodynamicist'], 'owner'), returned)).toBe(true);
 	});
 
 	it('keeps models within their team', () => {

@@ -1,9 +1,7 @@
 import { z } from 'zod';
 import { MAX_MATRIX_POINTS, MAX_POINTS_PER_PLANE } from '../calc/matrix';
 
-/** Workflow states of a campaign; review and approval add theirs. */
-export const CAMPAIGN_STATES = ['draft'] as const;
-export type CampaignState = (typeof CAMPAIGN_STATES)[number];
+export { CAMPAIGN_STATES, type CampaignState } from '../workflow';
 
 export const SPEED_UNITS = ['m/s', 'km/h', 'm/h'] as const;
 export const DOWNSTREAM_UNITS = ['model-lengths', 'mm'] as const;

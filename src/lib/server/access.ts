@@ -1,11 +1,17 @@
 import type { SessionUser } from '../roles';
-import type { CampaignState } from '../schemas/campaign';
+import type { CampaignState } from '../workflow';
 
 /**
  * Who may see and change what. Clients' work is confidential from each other, so team
  * membership gates every model and campaign; facility staff read campaigns once submitted.
  */
-export type CampaignAccessFacts = { teamId: string; ownerId: string; state: CampaignState };
+export type CampaignAccessFacts = {
+	teamId: string;
+	ownerId: string;
+	state: CampaignState;
+	/** Latest submitted revision; 0 until first submitted. */
+	lastRevision: number;
+};
 
 const isAdmin = (u: SessionUser) => u.roles.includes('admin');
 const inTeam = (u: SessionUser, teamId: string) => u.teams.some((t) => t.id === teamId);
@@ -23,8 +29,9 @@ export function canWriteModel(viewer: SessionUser, model: { teamId: string }): b
 export function canReadCampaign(viewer: SessionUser, c: CampaignAccessFacts): boolean {
 	if (isAdmin(viewer)) return true;
 	if (viewer.roles.includes('aerodynamicist') && inTeam(viewer, c.teamId)) return true;
+	// Staff see a campaign from its first submission on, its later drafts included.
 	const staff = viewer.roles.includes('reviewer') || viewer.roles.includes('operator');
-	return staff && c.state !== 'draft';
+	return staff && c.lastRevision > 0;
 }
 
 /** Only the owner edits, and only while the campaign is a draft. */

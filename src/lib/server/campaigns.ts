@@ -34,6 +34,7 @@ export function listCampaignsFor(db: Db, viewer: SessionUser): CampaignListing[]
 			updatedAt: campaign.updatedAt,
 			teamId: campaign.teamId,
 			ownerId: campaign.ownerId,
+			lastRevision: campaign.lastRevision,
 			definition: campaign.definition,
 			modelName: scaleModel.name,
 			facilityName: facility.name,

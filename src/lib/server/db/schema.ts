@@ -11,7 +11,9 @@ import {
 import type { AdapterAccountType } from '@auth/sveltekit/adapters';
 import { ROLES, TEAM_KINDS } from '../../roles';
 import { MODEL_KINDS, SECTION_KINDS } from '../../calc/kinds';
-import { CAMPAIGN_STATES, type CampaignDefinition } from '../../schemas/campaign';
+import type { CampaignDefinition } from '../../schemas/campaign';
+import type { NoteAnchor, RevisionSnapshot } from '../../review/types';
+import { CAMPAIGN_ACTIONS, CAMPAIGN_STATES, VERDICTS } from '../../workflow';
 
 const id = () =>
 	text('id')
@@ -219,6 +221,10 @@ export const campaign = sqliteTable(
 			.notNull()
 			.references(() => facility.id, { onDelete: 'restrict' }),
 		state: text('state', { enum: CAMPAIGN_STATES }).notNull().default('draft'),
+		/** The revision a booking may use: the latest approved one, kept while a new draft is open. */
+		approvedRevisionId: text('approved_revision_id'),
+		/** Number of the latest submitted revision; 0 for a campaign never submitted. */
+		lastRevision: integer('last_revision').notNull().default(0),
 		name: text('name').notNull(),
 		objective: text('objective').notNull(),
 		definition: text('definition', { mode: 'json' }).$type<CampaignDefinition>().notNull(),
@@ -229,3 +235,104 @@ export const campaign = sqliteTable(
 	},
 	(t) => [index('campaign_team').on(t.teamId), index('campaign_facility').on(t.facilityId)]
 );
+
+/**
+ * A submitted campaign frozen as it was: its definition, the model and facility it used, and
+ * the computed figures. Never updated once written.
+ */
+export const campaignRevision = sqliteTable(
+	'campaign_revision',
+	{
+		id: id(),
+		campaignId: text('campaign_id')
+			.notNull()
+			.references(() => campaign.id, { onDelete: 'restrict' }),
+		number: integer('number').notNull(),
+		snapshot: text('snapshot', { mode: 'json' }).$type<RevisionSnapshot>().notNull(),
+		submittedBy: text('submitted_by')
+			.notNull()
+			.references(() => user.id, { onDelete: 'restrict' }),
+		submittedAt: createdAt()
+	},
+	(t) => [uniqueIndex('campaign_revision_number').on(t.campaignId, t.number)]
+);
+
+/** A reviewer's decision on one revision; the unique revision id lets only one stand. */
+export const reviewDecision = sqliteTable('review_decision', {
+	id: id(),
+	revisionId: text('revision_id')
+		.notNull()
+		.unique()
+		.references(() => campaignRevision.id, { onDelete: 'restrict' }),
+	reviewerId: text('reviewer_id')
+		.notNull()
+		.references(() => user.id, { onDelete: 'restrict' }),
+	verdict: text('verdict', { enum: VERDICTS }).notNull(),
+	summary: text('summary').notNull(),
+	createdAt: createdAt()
+});
+
+/** A reviewer's note, general or pinned to one value of a matrix axis. */
+export const reviewNote = sqliteTable(
+	'review_note',
+	{
+		id: id(),
+		decisionId: text('decision_id')
+			.notNull()
+			.references(() => reviewDecision.id, { onDelete: 'restrict' }),
+		anchor: text('anchor', { mode: 'json' }).$type<NoteAnchor>().notNull(),
+		text: text('text').notNull()
+	},
+	(t) => [index('review_note_decision').on(t.decisionId)]
+);
+
+/** Every transition and decision of a campaign, kept for good. */
+export const auditEvent = sqliteTable(
+	'audit_event',
+	{
+		id: id(),
+		campaignId: text('campaign_id').notNull(),
+		actorId: text('actor_id').references(() => user.id, { onDelete: 'set null' }),
+		actorName: text('actor_name').notNull(),
+		action: text('action', { enum: CAMPAIGN_ACTIONS }).notNull(),
+		fromState: text('from_state', { enum: CAMPAIGN_STATES }).notNull(),
+		toState: text('to_state', { enum: CAMPAIGN_STATES }).notNull(),
+		revisionNumber: integer('revision_number'),
+		notes: text('notes').notNull().default(''),
+		createdAt: createdAt()
+	},
+	(t) => [index('audit_event_campaign').on(t.campaignId, t.createdAt)]
+);
+
+export const MAIL_STATES = ['pending', 'sent', 'failed'] as const;
+
+/** Mail waiting to go out; written in the same transaction as what it announces. */
+export const mailOutbox = sqliteTable(
+	'mail_outbox',
+	{
+		id: id(),
+		kind: text('kind').notNull(),
+		to: text('to', { mode: 'json' }).$type<string[]>().notNull(),
+		subject: text('subject').notNull(),
+		text: text('text').notNull(),
+		state: text('state', { enum: MAIL_STATES }).notNull().default('pending'),
+		attempts: integer('attempts').notNull().default(0),
+		nextAttemptAt: integer('next_attempt_at', { mode: 'timestamp_ms' })
+			.notNull()
+			.default(sql`(unixepoch('subsec') * 1000)`),
+		lastError: text('last_error'),
+		sentAt: integer('sent_at', { mode: 'timestamp_ms' }),
+		createdAt: createdAt()
+	},
+	(t) => [index('mail_outbox_due').on(t.state, t.nextAttemptAt)]
+);
+
+/** What the local fake SMTP server received (only when no real relay is configured). */
+export const caughtMail = sqliteTable('caught_mail', {
+	id: id(),
+	from: text('from').notNull(),
+	to: text('to', { mode: 'json' }).$type<string[]>().notNull(),
+	subject: text('subject').notNull(),
+	text: text('text').notNull(),
+	receivedAt: createdAt()
+});

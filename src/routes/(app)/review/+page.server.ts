@@ -1,8 +1,8 @@
-import { listFacilities } from '$lib/server/facilities';
 import { requireRole } from '$lib/server/guards';
+import { reviewQueue } from '$lib/server/review';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ locals }) => {
-	requireRole(locals, 'reviewer', 'admin');
-	return { facilities: listFacilities(locals.db) };
+	const user = requireRole(locals, 'reviewer', 'admin');
+	return { queue: reviewQueue(locals.db, user) };
 };

@@ -1,10 +1,18 @@
-import { error, redirect } from '@sveltejs/kit';
+import { error, fail, redirect } from '@sveltejs/kit';
 import { CalcInputError } from '$lib/calc';
 import { canEditCampaign } from '$lib/server/access';
 import { figuresOf } from '$lib/server/campaign-export';
 import { deleteCampaign, getCampaignFor } from '$lib/server/campaigns';
 import { requireRole, requireUser } from '$lib/server/guards';
-import { STATUS_OF_REFUSAL } from '$lib/server/outcome';
+import { STATUS_OF_REFUSAL, type Refusal } from '$lib/server/outcome';
+import {
+	auditTrail,
+	listRevisions,
+	moveCampaign,
+	returnNotes,
+	submitCampaign
+} from '$lib/server/review';
+import { availableActions } from '$lib/workflow';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ locals, params }) => {
@@ -20,14 +28,46 @@ export const load: PageServerLoad = ({ locals, params }) => {
 		if (!(thrown instanceof CalcInputError)) throw thrown;
 		problem = thrown.message;
 	}
-	return { campaign: found, figures, problem, canEdit: canEditCampaign(user, found) };
+	return {
+		campaign: found,
+		figures,
+		problem,
+		canEdit: canEditCampaign(user, found),
+		actions: availableActions(found.state, {
+			roles: user.roles,
+			isOwner: found.ownerId === user.id
+		}),
+		revisions: listRevisions(locals.db, user, found.id) ?? [],
+		trail: auditTrail(locals.db, user, found.id) ?? [],
+		returned: returnNotes(locals.db, user, found.id)
+	};
 };
 
+function refusalError(refusal: Refusal): never {
+	error(STATUS_OF_REFUSAL[refusal.code], { message: refusal.message });
+}
+
 export const actions: Actions = {
+	submit: ({ locals, params, url }) => {
+		const user = requireRole(locals, 'aerodynamicist');
+		const submitted = submitCampaign(locals.db, user, params.id, url.origin);
+		if (!submitted.ok)
+			return fail(STATUS_OF_REFUSAL[submitted.code], { workflowError: submitted.message });
+		return { submitted: submitted.revision };
+	},
+	withdraw: ({ locals, params }) => move(locals, params.id, 'withdraw'),
+	revise: ({ locals, params }) => move(locals, params.id, 'revise'),
 	delete: ({ locals, params }) => {
 		const user = requireRole(locals, 'aerodynamicist');
 		const removed = deleteCampaign(locals.db, user, params.id);
-		if (!removed.ok) error(STATUS_OF_REFUSAL[removed.code], { message: removed.message });
+		if (!removed.ok) refusalError(removed);
 		redirect(303, '/campaigns');
 	}
 };
+
+function move(locals: App.Locals, id: string, action: 'withdraw' | 'revise') {
+	const user = requireRole(locals, 'aerodynamicist');
+	const moved = moveCampaign(locals.db, user, id, action);
+	if (!moved.ok) return fail(STATUS_OF_REFUSAL[moved.code], { workflowError: moved.message });
+	return { moved: action };
+}

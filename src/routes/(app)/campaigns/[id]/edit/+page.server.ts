@@ -7,6 +7,7 @@ import { saveCampaignForm } from '$lib/server/campaign-form';
 import { campaignInput, getCampaignFor, updateCampaign } from '$lib/server/campaigns';
 import { listFacilities } from '$lib/server/facilities';
 import { requireRole } from '$lib/server/guards';
+import { returnNotes } from '$lib/server/review';
 import { listModelsFor } from '$lib/server/models';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -20,6 +21,7 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 		name: found.name,
 		models: listModelsFor(locals.db, user).filter((m) => m.teamId === found.teamId),
 		facilities: listFacilities(locals.db),
+		review: returnNotes(locals.db, user, found.id),
 		form: await superValidate(campaignInput(found), zod4(campaignSchema))
 	};
 };

@@ -1,5 +1,6 @@
 import { error } from '@sveltejs/kit';
 import { runSheet } from '$lib/campaign/run-sheet';
+import { utcMinute } from '$lib/format';
 import { figuresOf } from '$lib/server/campaign-export';
 import { getCampaignFor } from '$lib/server/campaigns';
 import { requireUser } from '$lib/server/guards';
@@ -16,6 +17,6 @@ export const load: PageServerLoad = ({ locals, params }) => {
 		speeds: figures.speeds,
 		tunnelAir: figures.tunnelAir,
 		findings: figures.findings,
-		printedAt: new Date().toISOString().slice(0, 16).replace('T', ' ')
+		printedAt: utcMinute(new Date())
 	};
 };
