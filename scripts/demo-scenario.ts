@@ -391,3 +391,10 @@ export const DEMO_REVIEW_STORY: {
 		}
 	}
 ];
+
+/** The approved demo campaign goes on the calendar, and the open jet has a day of maintenance. */
+export const DEMO_BOOKING = {
+	campaign: 'Heron-4 forward-flight wake',
+	facility: 'Plover open-jet tunnel',
+	closure: { kind: 'maintenance' as const, reason: 'Fan bearing inspection', inDays: 6 }
+};

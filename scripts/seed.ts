@@ -1,11 +1,20 @@
 import { and, eq } from 'drizzle-orm';
+import { DateTime } from 'luxon';
 import { hashPassword } from '../src/lib/server/auth/password';
 import { databasePathFromEnv, migrateDatabase, openDatabase } from '../src/lib/server/db/open';
 import { campaignSchema } from '../src/lib/schemas/campaign';
+import {
+	bookableCampaigns,
+	createBooking,
+	createClosure,
+	proposeFor
+} from '../src/lib/server/bookings';
 import { decideRevision, submitCampaign } from '../src/lib/server/review';
 import { sessionUser } from '../src/lib/server/users';
 import {
+	booking,
 	campaign,
+	closure,
 	facility,
 	scaleModel,
 	team,
@@ -16,6 +25,7 @@ import {
 import {
 	CLIENT_TEAMS,
 	DEMO_ACCOUNTS,
+	DEMO_BOOKING,
 	DEMO_CAMPAIGNS,
 	DEMO_FACILITIES,
 	DEMO_MODELS,
@@ -147,7 +157,45 @@ for (const step of DEMO_REVIEW_STORY) {
 	}
 }
 
-db.$client.close();
 console.log(
 	`Seeded ${path}: ${DEMO_ACCOUNTS.length} accounts, ${DEMO_FACILITIES.length} facilities, ${DEMO_MODELS.length} models, ${DEMO_CAMPAIGNS.length} campaigns.`
 );
+
+// Put the approved demo campaign on the calendar over the coming days, around a closure.
+const operator = person('operator@demo.test');
+const plover = db.select().from(facility).where(eq(facility.name, DEMO_BOOKING.facility)).get()!;
+const tomorrow = DateTime.now().setZone(plover.timeZone).plus({ days: 1 }).startOf('day');
+if (!db.select().from(closure).where(eq(closure.facilityId, plover.id)).get()) {
+	const day = tomorrow.plus({ days: DEMO_BOOKING.closure.inDays });
+	createClosure(db, operator, plover.id, {
+		kind: DEMO_BOOKING.closure.kind,
+		reason: DEMO_BOOKING.closure.reason,
+		start: day.toJSDate(),
+		end: day.plus({ days: 1 }).toJSDate()
+	});
+}
+const approvedDemo = db
+	.select()
+	.from(campaign)
+	.where(eq(campaign.name, DEMO_BOOKING.campaign))
+	.get()!;
+if (!db.select().from(booking).where(eq(booking.campaignId, approvedDemo.id)).get()) {
+	const [waiting] = bookableCampaigns(db, plover.id).filter((c) => c.id === approvedDemo.id);
+	for (const slot of proposeFor(db, plover.id, waiting!.occupancy_s, tomorrow.toMillis())) {
+		const booked = createBooking(
+			db,
+			operator,
+			plover.id,
+			{
+				campaignId: approvedDemo.id,
+				start: new Date(slot.start),
+				end: new Date(slot.end),
+				note: ''
+			},
+			DEMO_ORIGIN
+		);
+		if (!booked.ok) throw new Error(`Demo booking: ${booked.message}`);
+	}
+}
+
+db.$client.close();

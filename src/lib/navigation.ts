@@ -8,7 +8,8 @@ export type NavItem = {
 		| '/operations'
 		| '/facilities'
 		| '/admin'
-		| '/admin/outbox';
+		| '/admin/outbox'
+		| '/calendar-feed';
 	label: string;
 	roles: readonly Role[];
 };
@@ -22,6 +23,11 @@ export const NAV_ITEMS: readonly NavItem[] = [
 	{
 		href: '/facilities',
 		label: 'Facilities',
+		roles: ['aerodynamicist', 'reviewer', 'operator', 'admin']
+	},
+	{
+		href: '/calendar-feed',
+		label: 'Calendar feed',
 		roles: ['aerodynamicist', 'reviewer', 'operator', 'admin']
 	},
 	{ href: '/admin', label: 'People', roles: ['admin'] },

@@ -24,7 +24,8 @@ describe('navigation by role', () => {
 		expect(navFor(['aerodynamicist']).map((i) => i.href)).toEqual([
 			'/campaigns',
 			'/models',
-			'/facilities'
+			'/facilities',
+			'/calendar-feed'
 		]);
 		expect(navFor([])).toEqual([]);
 	});

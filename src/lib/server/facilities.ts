@@ -1,6 +1,6 @@
 import { asc, eq } from 'drizzle-orm';
 import type { FacilityInput } from '../schemas/facility';
-import type { Db } from './db/open';
+import type { Db, DbOrTx } from './db/open';
 import { facility } from './db/schema';
 import { refuse, type Outcome } from './outcome';
 
@@ -10,7 +10,7 @@ export function listFacilities(db: Db): Facility[] {
 	return db.select().from(facility).orderBy(asc(facility.name)).all();
 }
 
-export function getFacility(db: Db, id: string): Facility | undefined {
+export function getFacility(db: DbOrTx, id: string): Facility | undefined {
 	return db.select().from(facility).where(eq(facility.id, id)).get();
 }
 

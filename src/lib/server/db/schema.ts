@@ -13,6 +13,7 @@ import { ROLES, TEAM_KINDS } from '../../roles';
 import { MODEL_KINDS, SECTION_KINDS } from '../../calc/kinds';
 import type { CampaignDefinition } from '../../schemas/campaign';
 import type { NoteAnchor, RevisionSnapshot } from '../../review/types';
+import { BOOKING_STATES, CLOSURE_KINDS } from '../../booking/rules';
 import { CAMPAIGN_ACTIONS, CAMPAIGN_STATES, VERDICTS } from '../../workflow';
 
 const id = () =>
@@ -335,4 +336,66 @@ export const caughtMail = sqliteTable('caught_mail', {
 	subject: text('subject').notNull(),
 	text: text('text').notNull(),
 	receivedAt: createdAt()
+});
+
+/** Time a facility cannot be booked. Times are UTC instants. */
+export const closure = sqliteTable(
+	'closure',
+	{
+		id: id(),
+		facilityId: text('facility_id')
+			.notNull()
+			.references(() => facility.id, { onDelete: 'cascade' }),
+		kind: text('kind', { enum: CLOSURE_KINDS }).notNull(),
+		reason: text('reason').notNull(),
+		start: integer('start_ms', { mode: 'timestamp_ms' }).notNull(),
+		end: integer('end_ms', { mode: 'timestamp_ms' }).notNull(),
+		createdBy: text('created_by').references(() => user.id, { onDelete: 'set null' }),
+		createdAt: createdAt()
+	},
+	(t) => [index('closure_facility_start').on(t.facilityId, t.start)]
+);
+
+/**
+ * A slot of tunnel time for an approved revision. Active slots (pencilled or confirmed) of one
+ * facility never overlap; the partial index serves the overlap check.
+ */
+export const booking = sqliteTable(
+	'booking',
+	{
+		id: id(),
+		facilityId: text('facility_id')
+			.notNull()
+			.references(() => facility.id, { onDelete: 'restrict' }),
+		campaignId: text('campaign_id')
+			.notNull()
+			.references(() => campaign.id, { onDelete: 'restrict' }),
+		revisionId: text('revision_id')
+			.notNull()
+			.references(() => campaignRevision.id, { onDelete: 'restrict' }),
+		state: text('state', { enum: BOOKING_STATES }).notNull().default('pencilled'),
+		start: integer('start_ms', { mode: 'timestamp_ms' }).notNull(),
+		end: integer('end_ms', { mode: 'timestamp_ms' }).notNull(),
+		note: text('note').notNull().default(''),
+		createdBy: text('created_by').references(() => user.id, { onDelete: 'set null' }),
+		createdAt: createdAt(),
+		updatedAt: integer('updated_at', { mode: 'timestamp_ms' })
+			.notNull()
+			.default(sql`(unixepoch('subsec') * 1000)`)
+	},
+	(t) => [
+		index('booking_active_start')
+			.on(t.facilityId, t.start)
+			.where(sql`state in ('pencilled', 'confirmed')`),
+		index('booking_campaign').on(t.campaignId)
+	]
+);
+
+/** The secret in a user's calendar-feed address; only its hash is kept. */
+export const calendarFeed = sqliteTable('calendar_feed', {
+	userId: text('user_id')
+		.primaryKey()
+		.references(() => user.id, { onDelete: 'cascade' }),
+	tokenHash: text('token_hash').notNull().unique(),
+	createdAt: createdAt()
 });

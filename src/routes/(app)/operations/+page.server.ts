@@ -1,8 +1,14 @@
+import { bookableCampaigns } from '$lib/server/bookings';
 import { listFacilities } from '$lib/server/facilities';
 import { requireRole } from '$lib/server/guards';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ locals }) => {
 	requireRole(locals, 'operator', 'admin');
-	return { facilities: listFacilities(locals.db) };
+	return {
+		facilities: listFacilities(locals.db).map((f) => ({
+			...f,
+			waiting: bookableCampaigns(locals.db, f.id).filter((c) => c.occupancy_s > c.booked_s).length
+		}))
+	};
 };

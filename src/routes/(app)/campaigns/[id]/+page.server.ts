@@ -1,6 +1,7 @@
 import { error, fail, redirect } from '@sveltejs/kit';
 import { CalcInputError } from '$lib/calc';
 import { canEditCampaign } from '$lib/server/access';
+import { campaignSlots } from '$lib/server/bookings';
 import { figuresOf } from '$lib/server/campaign-export';
 import { deleteCampaign, getCampaignFor } from '$lib/server/campaigns';
 import { requireRole, requireUser } from '$lib/server/guards';
@@ -39,7 +40,8 @@ export const load: PageServerLoad = ({ locals, params }) => {
 		}),
 		revisions: listRevisions(locals.db, user, found.id) ?? [],
 		trail: auditTrail(locals.db, user, found.id) ?? [],
-		returned: returnNotes(locals.db, user, found.id)
+		returned: returnNotes(locals.db, user, found.id),
+		slots: campaignSlots(locals.db, found.id)
 	};
 };
 

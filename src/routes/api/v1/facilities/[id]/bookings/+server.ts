@@ -1,0 +1,32 @@
+import { error, json } from '@sveltejs/kit';
+import { rangeQuery } from '$lib/schemas/range';
+import { bookingSchema } from '$lib/schemas/booking';
+import { apiError, fieldMessages, readJson, refusalResponse } from '$lib/server/api';
+import { createBooking, listBookings } from '$lib/server/bookings';
+import { getFacility } from '$lib/server/facilities';
+import { requireRole, requireUser } from '$lib/server/guards';
+import type { RequestHandler } from './$types';
+
+export const GET: RequestHandler = ({ locals, params, url }) => {
+	const user = requireUser(locals);
+	if (!getFacility(locals.db, params.id)) error(404, { message: 'No such facility.' });
+	const range = rangeQuery.safeParse(Object.fromEntries(url.searchParams));
+	if (!range.success) return apiError(400, 'invalid', 'Bad range.', fieldMessages(range.error));
+	return json({
+		bookings: listBookings(locals.db, user, params.id, range.data.from, range.data.to)
+	});
+};
+
+export const POST: RequestHandler = async (event) => {
+	const user = requireRole(event.locals, 'operator', 'admin');
+	const body = await readJson(event, bookingSchema);
+	if (!body.ok) return body.response;
+	const created = createBooking(
+		event.locals.db,
+		user,
+		event.params.id,
+		body.data,
+		event.url.origin
+	);
+	return created.ok ? json({ id: created.id }, { status: 201 }) : refusalResponse(created);
+};

@@ -1,0 +1,214 @@
+import { DateTime } from 'luxon';
+import { describe, expect, it } from 'vitest';
+import { booking } from '../../src/lib/server/db/schema';
+import {
+	changeBooking,
+	createBooking,
+	createClosure,
+	listBookings,
+	proposeFor
+} from '../../src/lib/server/bookings';
+import { createCampaign } from '../../src/lib/server/campaigns';
+import { decideRevision, moveCampaign, submitCampaign } from '../../src/lib/server/review';
+import type { SessionUser } from '../../src/lib/roles';
+import { campaignWorld } from './campaign-fixtures';
+import { addUser, tempDb } from './temp-db';
+
+const ORIGIN = 'http://tunnelwright.test';
+// The demo facility opens Monday to Friday 07:00–19:00 Europe/Berlin; tests book in January 2027
+// (UTC+1), seen from a fixed "now" before it.
+const NOW = DateTime.fromISO('2026-12-01T00:00', { zone: 'utc' }).toMillis();
+const at = (local: string) => DateTime.fromISO(local, { zone: 'Europe/Berlin' }).toJSDate();
+
+function approvedWorld() {
+	const db = tempDb();
+	const w = campaignWorld(db);
+	const operator: SessionUser = {
+		...w.reviewer,
+		id: addUser(db, 'op@example.org', ['operator']),
+		email: 'op@example.org',
+		roles: ['operator']
+	};
+	const created = createCampaign(db, w.aeroA, w.input());
+	if (!created.ok) throw new Error(created.message);
+	submitCampaign(db, w.aeroA, created.id, ORIGIN);
+	decideRevision(
+		db,
+		w.reviewer,
+		created.id,
+		{ revision: 1, verdict: 'approve', summary: '', notes: [] },
+		ORIGIN
+	);
+	const book = (start: string, end: string) =>
+		createBooking(
+			db,
+			operator,
+			w.tunnel,
+			{ campaignId: created.id, start: at(start), end: at(end), note: '' },
+			ORIGIN,
+			NOW
+		);
+	return { db, w, operator, campaignId: created.id, book };
+}
+
+describe('booking rules', () => {
+	it('allows touching slots and refuses a one-second overlap, naming the slot it collides with', () => {
+		const { book } = approvedWorld();
+		const first = book('2027-01-04T08:00', '2027-01-04T12:00');
+		expect(first.ok).toBe(true);
+		expect(book('2027-01-04T12:00', '2027-01-04T15:00').ok).toBe(true);
+		const clash = book('2027-01-04T14:59:59', '2027-01-04T16:00');
+		expect(clash).toMatchObject({ ok: false, code: 'conflict' });
+		expect(!clash.ok && clash.message).toMatch(
+			/collides with booking [\w-]+ \(2027-01-04 11:00 UTC/
+		);
+		expect(book('2027-01-04T07:59:59', '2027-01-04T08:00:01')).toMatchObject({
+			ok: false,
+			code: 'conflict'
+		});
+	});
+
+	it('refuses slots outside opening hours, in the past, over a closure, or of zero length', () => {
+		const { db, operator, w, book } = approvedWorld();
+		expect(book('2027-01-04T06:00', '2027-01-04T08:00')).toMatchObject({
+			code: 'invalid',
+			message: expect.stringMatching(/opening hours/)
+		});
+		expect(book('2027-01-09T09:00', '2027-01-09T10:00')).toMatchObject({ code: 'invalid' }); // a Saturday
+		expect(book('2026-11-30T09:00', '2026-11-30T10:00')).toMatchObject({
+			code: 'invalid',
+			message: 'The slot starts in the past.'
+		});
+		expect(book('2027-01-05T09:00', '2027-01-05T09:00')).toMatchObject({ code: 'invalid' });
+		expect(
+			createClosure(db, operator, w.tunnel, {
+				kind: 'calibration',
+				reason: 'Balance calibration',
+				start: at('2027-01-06T07:00'),
+				end: at('2027-01-06T19:00')
+			}).ok
+		).toBe(true);
+		expect(book('2027-01-06T10:00', '2027-01-06T11:00')).toMatchObject({
+			code: 'conflict',
+			message: expect.stringMatching(/closed then: Balance calibration/)
+		});
+		expect(db.select().from(booking).all()).toEqual([]);
+	});
+
+	it('books only approved revisions, and keeps slots tied to the approved revision when a new one is drafted', () => {
+		const { db, w, operator, campaignId, book } = approvedWorld();
+		const draft = createCampaign(db, w.aeroA, { ...w.input(), name: 'Not yet approved' });
+		if (!draft.ok) throw new Error(draft.message);
+		expect(
+			createBooking(
+				db,
+				operator,
+				w.tunnel,
+				{
+					campaignId: draft.id,
+					start: at('2027-01-04T08:00'),
+					end: at('2027-01-04T09:00'),
+					note: ''
+				},
+				ORIGIN,
+				NOW
+			)
+		).toMatchObject({ code: 'conflict' });
+
+		expect(book('2027-01-04T08:00', '2027-01-04T12:00').ok).toBe(true);
+		expect(moveCampaign(db, w.aeroA, campaignId, 'revise')).toEqual({ ok: true });
+		const [entry] = listBookings(
+			db,
+			operator,
+			w.tunnel,
+			at('2027-01-01T00:00'),
+			at('2027-02-01T00:00')
+		);
+		expect(entry).toMatchObject({ stale: true, campaignName: w.input().name });
+		// Hours × rate in decimals: 4 h at the facility's 780.00 per hour.
+		expect(entry!.cost).toBe('3120.00');
+	});
+
+	it('lets only operators and admins book, and hides other teams’ campaigns from aerodynamicists', () => {
+		const { db, w, book } = approvedWorld();
+		expect(
+			createBooking(
+				db,
+				w.aeroA,
+				w.tunnel,
+				{ campaignId: 'x', start: at('2027-01-04T08:00'), end: at('2027-01-04T09:00'), note: '' },
+				ORIGIN,
+				NOW
+			)
+		).toMatchObject({ code: 'forbidden' });
+		book('2027-01-04T08:00', '2027-01-04T12:00');
+		const [seenByOtherTeam] = listBookings(
+			db,
+			w.aeroB,
+			w.tunnel,
+			at('2027-01-01T00:00'),
+			at('2027-02-01T00:00')
+		);
+		expect(seenByOtherTeam).toMatchObject({ campaignName: null, campaignId: '', cost: null });
+		const [seenByOwner] = listBookings(
+			db,
+			w.aeroA,
+			w.tunnel,
+			at('2027-01-01T00:00'),
+			at('2027-02-01T00:00')
+		);
+		expect(seenByOwner!.campaignName).toBe(w.input().name);
+	});
+
+	it('moves, confirms, completes and cancels slots by the state rules', () => {
+		const { db, operator, book } = approvedWorld();
+		const a = book('2027-01-04T08:00', '2027-01-04T10:00');
+		const b = book('2027-01-04T10:00', '2027-01-04T12:00');
+		if (!a.ok || !b.ok) throw new Error('setup');
+		expect(
+			changeBooking(db, operator, b.id, { start: at('2027-01-04T09:00') }, ORIGIN, NOW)
+		).toMatchObject({ code: 'conflict' });
+		expect(
+			changeBooking(
+				db,
+				operator,
+				b.id,
+				{ start: at('2027-01-04T13:00'), end: at('2027-01-04T15:00') },
+				ORIGIN,
+				NOW
+			)
+		).toEqual({ ok: true });
+		expect(changeBooking(db, operator, a.id, { state: 'confirmed' }, ORIGIN, NOW)).toEqual({
+			ok: true
+		});
+		expect(changeBooking(db, operator, a.id, { state: 'completed' }, ORIGIN, NOW)).toEqual({
+			ok: true
+		});
+		expect(changeBooking(db, operator, a.id, { state: 'cancelled' }, ORIGIN, NOW)).toMatchObject({
+			code: 'conflict'
+		});
+		expect(changeBooking(db, operator, b.id, { state: 'cancelled' }, ORIGIN, NOW)).toEqual({
+			ok: true
+		});
+		// A cancelled slot frees its time.
+		expect(book('2027-01-04T13:00', '2027-01-04T15:00').ok).toBe(true);
+	});
+
+	it('proposes the first free time that holds the campaign, around slots and closures', () => {
+		const { db, w, operator, book } = approvedWorld();
+		book('2027-01-04T07:00', '2027-01-04T12:00');
+		createClosure(db, operator, w.tunnel, {
+			kind: 'holiday',
+			reason: 'Site holiday',
+			start: at('2027-01-05T00:00'),
+			end: at('2027-01-06T00:00')
+		});
+		const slots = proposeFor(db, w.tunnel, 10 * 3600, at('2027-01-04T07:00').getTime());
+		expect(
+			slots.map((s) => [new Date(s.start).toISOString(), new Date(s.end).toISOString()])
+		).toEqual([
+			['2027-01-04T11:00:00.000Z', '2027-01-04T18:00:00.000Z'],
+			['2027-01-06T06:00:00.000Z', '2027-01-06T09:00:00.000Z']
+		]);
+	});
+});
