@@ -9,10 +9,9 @@ import {
 	proposeFor
 } from '../../src/lib/server/bookings';
 import { createCampaign } from '../../src/lib/server/campaigns';
-import { decideRevision, moveCampaign, submitCampaign } from '../../src/lib/server/review';
-import type { SessionUser } from '../../src/lib/roles';
-import { campaignWorld } from './campaign-fixtures';
-import { addUser, tempDb } from './temp-db';
+import { moveCampaign } from '../../src/lib/server/review';
+import { approvedCampaignWorld } from './campaign-fixtures';
+import { tempDb } from './temp-db';
 
 const ORIGIN = 'http://tunnelwright.test';
 // The demo facility opens Monday to Friday 07:00–19:00 Europe/Berlin; tests book in January 2027
@@ -22,33 +21,18 @@ const at = (local: string) => DateTime.fromISO(local, { zone: 'Europe/Berlin' })
 
 function approvedWorld() {
 	const db = tempDb();
-	const w = campaignWorld(db);
-	const operator: SessionUser = {
-		...w.reviewer,
-		id: addUser(db, 'op@example.org', ['operator']),
-		email: 'op@example.org',
-		roles: ['operator']
-	};
-	const created = createCampaign(db, w.aeroA, w.input());
-	if (!created.ok) throw new Error(created.message);
-	submitCampaign(db, w.aeroA, created.id, ORIGIN);
-	decideRevision(
-		db,
-		w.reviewer,
-		created.id,
-		{ revision: 1, verdict: 'approve', summary: '', notes: [] },
-		ORIGIN
-	);
+	const w = approvedCampaignWorld(db, ORIGIN);
+	const { operator, campaignId } = w;
 	const book = (start: string, end: string) =>
 		createBooking(
 			db,
 			operator,
 			w.tunnel,
-			{ campaignId: created.id, start: at(start), end: at(end), note: '' },
+			{ campaignId, start: at(start), end: at(end), note: '' },
 			ORIGIN,
 			NOW
 		);
-	return { db, w, operator, campaignId: created.id, book };
+	return { db, w, operator, campaignId, book };
 }
 
 describe('booking rules', () => {

@@ -3,6 +3,8 @@ import type { Role, SessionUser } from '../../src/lib/roles';
 import type { CampaignInput } from '../../src/lib/schemas/campaign';
 import type { Db } from '../../src/lib/server/db/open';
 import { facility, scaleModel } from '../../src/lib/server/db/schema';
+import { createCampaign } from '../../src/lib/server/campaigns';
+import { decideRevision, submitCampaign } from '../../src/lib/server/review';
 import { addTeam, addUser } from './temp-db';
 
 /**
@@ -52,4 +54,27 @@ export function campaignWorld(db: Db) {
 		facilityId: tunnel
 	});
 	return { clientA, clientB, aeroA, aeroA2, aeroB, reviewer, admin, tunnel, modelA, modelB, input };
+}
+
+/** The campaign world with an operator and one campaign of client A submitted and approved. */
+export function approvedCampaignWorld(db: Db, origin: string) {
+	const w = campaignWorld(db);
+	const operator: SessionUser = {
+		...w.reviewer,
+		id: addUser(db, 'op@example.org', ['operator']),
+		email: 'op@example.org',
+		roles: ['operator']
+	};
+	const created = createCampaign(db, w.aeroA, w.input());
+	if (!created.ok) throw new Error(created.message);
+	submitCampaign(db, w.aeroA, created.id, origin);
+	const approved = decideRevision(
+		db,
+		w.reviewer,
+		created.id,
+		{ revision: 1, verdict: 'approve', summary: '', notes: [] },
+		origin
+	);
+	if (!approved.ok) throw new Error(approved.message);
+	return { ...w, operator, campaignId: created.id };
 }

@@ -21,12 +21,17 @@ export const load: PageServerLoad = ({ locals, params, url }) => {
 	const user = requireUser(locals);
 	const facility = getFacility(locals.db, params.id);
 	if (!facility) error(404, { message: 'No such facility.' });
-	const week = weekOf(url.searchParams.get('week'), facility.timeZone);
+	const day = url.searchParams.get('day');
+	const week = weekOf(day ?? url.searchParams.get('week'), facility.timeZone);
+	// The day view is one column of the same week, wider.
+	const shown = day ? week.days.filter((d) => d.iso === day) : week.days;
 	const canBook = user.roles.includes('operator') || user.roles.includes('admin');
 	const now = Date.now();
 	return {
 		facility,
 		week,
+		view: day && shown.length ? ('day' as const) : ('week' as const),
+		days: shown.length ? shown : week.days,
 		bookings: listBookings(locals.db, user, facility.id, week.from, week.to),
 		closures: listClosures(locals.db, facility.id, week.from, week.to),
 		windows: openingWindows(
