@@ -2,6 +2,7 @@ import { DateTime } from 'luxon';
 import { describe, expect, it } from 'vitest';
 import { booking } from '../../src/lib/server/db/schema';
 import {
+	bookableCampaigns,
 	changeBooking,
 	createBooking,
 	createClosure,
@@ -100,6 +101,9 @@ describe('booking rules', () => {
 		).toMatchObject({ code: 'conflict' });
 
 		expect(book('2027-01-04T08:00', '2027-01-04T12:00').ok).toBe(true);
+		const [waiting] = bookableCampaigns(db, w.tunnel);
+		expect(waiting).toMatchObject({ id: campaignId, booked_s: 4 * 3600 });
+		expect(waiting!.occupancy_s).toBeGreaterThan(waiting!.booked_s);
 		expect(moveCampaign(db, w.aeroA, campaignId, 'revise')).toEqual({ ok: true });
 		const [entry] = listBookings(
 			db,

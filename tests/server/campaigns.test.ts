@@ -1,4 +1,6 @@
+import { eq } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
+import { campaign } from '../../src/lib/server/db/schema';
 import { campaignSchema } from '../../src/lib/schemas/campaign';
 import { canEditCampaign, canReadCampaign, canReadModel } from '../../src/lib/server/access';
 import {
@@ -74,6 +76,10 @@ describe('campaign drafts', () => {
 		expect(getCampaignFor(db, w.reviewer, created.id)).toBeUndefined();
 		expect(getCampaignFor(db, w.admin, created.id)).toBeDefined();
 		expect(listCampaignsFor(db, w.aeroB)).toEqual([]);
+		// Drafts never submitted stay out of the staff's listings, as canReadCampaign says.
+		expect(listCampaignsFor(db, w.reviewer)).toEqual([]);
+		db.update(campaign).set({ lastRevision: 1 }).where(eq(campaign.id, created.id)).run();
+		expect(listCampaignsFor(db, w.reviewer).map((c) => c.id)).toEqual([created.id]);
 		expect(listCampaignsFor(db, w.aeroA).map((c) => c.id)).toEqual([created.id]);
 		expect(listModelsFor(db, w.aeroB).map((m) => m.id)).toEqual([w.modelB]);
 		expect(getModelFor(db, w.aeroB, w.modelA)).toBeUndefined();

@@ -18,6 +18,16 @@ export type SpeedFigures = SpeedCondition & {
 	machAtEqualRe: number;
 };
 
+/**
+ * A speed's similarity notes as campaign findings, prefixed with the speed. Mach is left to the
+ * envelope check, which reports it once per speed already.
+ */
+export function speedNotes(speed_mps: number, notes: Finding[]): Finding[] {
+	return notes
+		.filter((n) => n.code !== 'mach-compressible')
+		.map((n) => ({ ...n, message: `${+speed_mps.toFixed(1)} m/s: ${n.message}` }));
+}
+
 export type CampaignFigures = CampaignPlan & {
 	speeds: SpeedFigures[];
 	findings: Finding[];
@@ -45,11 +55,7 @@ export function campaignFigures(
 			tunnelAir: planned.tunnelAir,
 			reIndependenceThreshold: def.reIndependenceThreshold ?? undefined
 		});
-		for (const note of s.notes) {
-			// The Re gap and Mach notes repeat per speed; keep each code once per speed in words.
-			if (note.code !== 'mach-compressible')
-				findings.push({ ...note, message: `${condition.speed_mps} m/s: ${note.message}` });
-		}
+		findings.push(...speedNotes(condition.speed_mps, s.notes));
 		return {
 			...condition,
 			fullScaleRe: s.fullScaleRe,

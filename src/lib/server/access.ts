@@ -1,5 +1,7 @@
+import { gt, inArray, or, sql, type SQL } from 'drizzle-orm';
 import type { SessionUser } from '../roles';
 import type { CampaignState } from '../workflow';
+import { campaign } from './db/schema';
 
 /**
  * Who may see and change what. Clients' work is confidential from each other, so team
@@ -32,6 +34,20 @@ export function canReadCampaign(viewer: SessionUser, c: CampaignAccessFacts): bo
 	// Staff see a campaign from its first submission on, its later drafts included.
 	const staff = viewer.roles.includes('reviewer') || viewer.roles.includes('operator');
 	return staff && c.lastRevision > 0;
+}
+
+/**
+ * canReadCampaign as a query condition, so listings filter in SQL; the two must agree (tested
+ * in tests/server/campaigns.test.ts).
+ */
+export function readableCampaigns(viewer: SessionUser): SQL | undefined {
+	if (isAdmin(viewer)) return undefined;
+	const staff = viewer.roles.includes('reviewer') || viewer.roles.includes('operator');
+	const teamIds = viewer.roles.includes('aerodynamicist') ? viewer.teams.map((t) => t.id) : [];
+	return or(
+		teamIds.length ? inArray(campaign.teamId, teamIds) : sql`0`,
+		staff ? gt(campaign.lastRevision, 0) : sql`0`
+	);
 }
 
 /** Only the owner edits, and only while the campaign is a draft. */

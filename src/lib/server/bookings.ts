@@ -1,5 +1,6 @@
 import { and, asc, desc, eq, gt, inArray, lt, ne, sql } from 'drizzle-orm';
 import { occupancyCost } from '../calc';
+import { utcMinute } from '../format';
 import { withinOpeningHours, proposeSlots } from '../booking/calendar';
 import { ACTIVE_BOOKING_STATES, type BookingState, type Interval } from '../booking/rules';
 import type { SessionUser } from '../roles';
@@ -28,7 +29,7 @@ const isStaff = (u: SessionUser) => canBook(u) || u.roles.includes('reviewer');
 const active = sql.raw(
 	`"booking"."state" in (${ACTIVE_BOOKING_STATES.map((s) => `'${s}'`).join(', ')})`
 );
-const when = (ms: Date) => ms.toISOString().slice(0, 16).replace('T', ' ') + ' UTC';
+const when = (moment: Date) => `${utcMinute(moment)} UTC`;
 
 /**
  * The active slot of the facility that meets [start, end), if any. Active slots never overlap,
@@ -342,34 +343,41 @@ export function createClosure(
 	);
 }
 
-/** Campaigns with an approved revision for this facility, and how long each needs. */
+/** Campaigns with an approved revision for this facility, how long each needs and has booked. */
 export function bookableCampaigns(db: Db, facilityId: string) {
+	const held = db
+		.select({
+			campaignId: booking.campaignId,
+			booked_ms: sql<number>`sum(${booking.end} - ${booking.start})`.as('booked_ms')
+		})
+		.from(booking)
+		.where(
+			and(
+				eq(booking.facilityId, facilityId),
+				inArray(booking.state, ['pencilled', 'confirmed', 'completed'])
+			)
+		)
+		.groupBy(booking.campaignId)
+		.as('held');
 	return db
 		.select({
 			id: campaign.id,
 			name: campaign.name,
 			state: campaign.state,
-			snapshot: campaignRevision.snapshot
+			snapshot: campaignRevision.snapshot,
+			booked_ms: held.booked_ms
 		})
 		.from(campaign)
 		.innerJoin(campaignRevision, eq(campaignRevision.id, campaign.approvedRevisionId))
+		.leftJoin(held, eq(held.campaignId, campaign.id))
 		.where(eq(campaign.facilityId, facilityId))
 		.orderBy(asc(campaign.name))
 		.all()
-		.map(({ snapshot, ...c }) => {
-			const booked = db
-				.select({ start: booking.start, end: booking.end })
-				.from(booking)
-				.where(
-					and(
-						eq(booking.campaignId, c.id),
-						inArray(booking.state, ['pencilled', 'confirmed', 'completed'])
-					)
-				)
-				.all()
-				.reduce((s, b) => s + (b.end.getTime() - b.start.getTime()) / 1000, 0);
-			return { ...c, occupancy_s: snapshot.figures.occupancy.total_s, booked_s: booked };
-		});
+		.map(({ snapshot, booked_ms, ...c }) => ({
+			...c,
+			occupancy_s: snapshot.figures.occupancy.total_s,
+			booked_s: (booked_ms ?? 0) / 1000
+		}));
 }
 
 /** The first free slots that hold what the campaign still needs, from `from` on. */

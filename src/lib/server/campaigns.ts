@@ -1,7 +1,7 @@
 import { desc, eq } from 'drizzle-orm';
 import type { SessionUser } from '../roles';
 import type { CampaignDefinition, CampaignInput } from '../schemas/campaign';
-import { canEditCampaign, canReadCampaign } from './access';
+import { canEditCampaign, canReadCampaign, readableCampaigns } from './access';
 import type { Db } from './db/open';
 import { campaign, facility, scaleModel, team, user } from './db/schema';
 import { getFacility, type Facility } from './facilities';
@@ -46,9 +46,9 @@ export function listCampaignsFor(db: Db, viewer: SessionUser): CampaignListing[]
 		.innerJoin(facility, eq(facility.id, campaign.facilityId))
 		.innerJoin(team, eq(team.id, campaign.teamId))
 		.innerJoin(user, eq(user.id, campaign.ownerId))
+		.where(readableCampaigns(viewer))
 		.orderBy(desc(campaign.updatedAt))
 		.all()
-		.filter((c) => canReadCampaign(viewer, c))
 		.map((c) => ({ ...c, ownerName: c.ownerName ?? '' }));
 }
 
