@@ -31,7 +31,11 @@ export async function startSeededApp({
 		throw new Error('Run `vite build` first: build/index.js is missing.');
 	const dir = mkdtempSync(join(tmpdir(), 'tunnelwright-app-'));
 	const databasePath = join(dir, 'app.db');
-	const env = { ...process.env, DATABASE_URL: databasePath };
+	const env = {
+		...process.env,
+		DATABASE_URL: databasePath,
+		ATTACHMENTS_DIR: join(dir, 'attachments')
+	};
 	execFileSync(process.execPath, ['--import', 'tsx', 'scripts/seed.ts'], {
 		env,
 		stdio: quiet ? 'ignore' : 'inherit'
@@ -45,8 +49,7 @@ export async function startSeededApp({
 			HOST: '127.0.0.1',
 			PORT: String(port),
 			ORIGIN: baseUrl,
-			BODY_SIZE_LIMIT: '12M',
-			ATTACHMENTS_DIR: join(dir, 'attachments'),
+			BODY_SIZE_LIMIT: '25M',
 			AUTH_SECRET: randomBytes(32).toString('base64url')
 		},
 		stdio: ['ignore', quiet ? 'ignore' : 'inherit', 'inherit']

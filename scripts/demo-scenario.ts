@@ -398,3 +398,76 @@ export const DEMO_BOOKING = {
 	facility: 'Plover open-jet tunnel',
 	closure: { kind: 'maintenance' as const, reason: 'Fan bearing inspection', inDays: 6 }
 };
+
+/** A Gaussian wake in a traverse plane: total-pressure loss and static dip at its centre. */
+export type DemoWake = {
+	centreY_m: number;
+	centreZ_m: number;
+	halfWidth_m: number;
+	totalPressureLoss: number;
+	staticDip: number;
+};
+
+/**
+ * Invented wake surveys for the approved demo campaign, as the open jet's acquisition computer
+ * would send them: the level body and the nose-down variant at 9 and 12 m/s, yaw 0°, static and
+ * total readings at every probe. Demo data only, never a check value.
+ */
+export const DEMO_READINGS = {
+	campaign: 'Heron-4 forward-flight wake',
+	sender: 'operator@demo.test',
+	fileName: 'plover-scanner-heron4.csv',
+	airTemperature_C: 16.2,
+	barometricPressure_hPa: 1000.4,
+	relativeHumidity: 0.58,
+	surveys: [
+		{
+			configuration: 'level',
+			yaw_deg: 0,
+			speed_mps: 9,
+			wake: {
+				centreY_m: 0.27,
+				centreZ_m: 0,
+				halfWidth_m: 0.12,
+				totalPressureLoss: 0.34,
+				staticDip: 0.05
+			}
+		},
+		{
+			configuration: 'level',
+			yaw_deg: 0,
+			speed_mps: 12,
+			wake: {
+				centreY_m: 0.28,
+				centreZ_m: 0,
+				halfWidth_m: 0.115,
+				totalPressureLoss: 0.31,
+				staticDip: 0.05
+			}
+		},
+		{
+			configuration: 'nose-down',
+			yaw_deg: 0,
+			speed_mps: 9,
+			wake: {
+				centreY_m: 0.22,
+				centreZ_m: 0.01,
+				halfWidth_m: 0.13,
+				totalPressureLoss: 0.41,
+				staticDip: 0.07
+			}
+		},
+		{
+			configuration: 'nose-down',
+			yaw_deg: 0,
+			speed_mps: 12,
+			wake: {
+				centreY_m: 0.23,
+				centreZ_m: 0.01,
+				halfWidth_m: 0.125,
+				totalPressureLoss: 0.37,
+				staticDip: 0.065
+			}
+		}
+	] satisfies { configuration: string; yaw_deg: number; speed_mps: number; wake: DemoWake }[]
+};

@@ -9,13 +9,17 @@ import {
 	createClosure,
 	proposeFor
 } from '../src/lib/server/bookings';
+import { approvedLayout, receiveReadings } from '../src/lib/server/readings';
 import { decideRevision, submitCampaign } from '../src/lib/server/review';
+import { attachmentsDirFromEnv, diskBlobStore } from '../src/lib/server/storage';
+import { demoReadingsCsv } from './demo-readings';
 import { sessionUser } from '../src/lib/server/users';
 import {
 	booking,
 	campaign,
 	closure,
 	facility,
+	readingsUpload,
 	scaleModel,
 	team,
 	teamMember,
@@ -31,6 +35,7 @@ import {
 	DEMO_MODELS,
 	DEMO_ORIGIN,
 	DEMO_PASSWORD,
+	DEMO_READINGS,
 	DEMO_REVIEW_STORY,
 	STAFF_TEAM
 } from './demo-scenario';
@@ -196,6 +201,26 @@ if (!db.select().from(booking).where(eq(booking.campaignId, approvedDemo.id)).ge
 		);
 		if (!booked.ok) throw new Error(`Demo booking: ${booked.message}`);
 	}
+}
+
+// The tunnel's acquisition computer has sent back the first wake surveys of the approved campaign.
+const surveyed = db.select().from(campaign).where(eq(campaign.name, DEMO_READINGS.campaign)).get()!;
+if (!db.select().from(readingsUpload).where(eq(readingsUpload.campaignId, surveyed.id)).get()) {
+	const approved = approvedLayout(db, surveyed.approvedRevisionId!);
+	if (!approved.ok) throw new Error(`Demo readings: ${approved.message}`);
+	const received = await receiveReadings(
+		db,
+		diskBlobStore(attachmentsDirFromEnv(process.env)),
+		person(DEMO_READINGS.sender),
+		surveyed.id,
+		{
+			fileName: DEMO_READINGS.fileName,
+			mediaType: 'text/csv',
+			bytes: new TextEncoder().encode(demoReadingsCsv(approved.plan, approved.layout)),
+			channel: 'api'
+		}
+	);
+	if (!received.ok) throw new Error(`Demo readings: ${received.message}`);
 }
 
 db.$client.close();

@@ -1,5 +1,6 @@
 import type { Db } from '$lib/server/db';
 import type { SessionUser } from '$lib/roles';
+import type { ApiTokenScope } from '$lib/schemas/api-token';
 
 declare global {
 	namespace App {
@@ -11,6 +12,8 @@ declare global {
 		interface Locals {
 			db: Db;
 			user: SessionUser | null;
+			/** The personal API token this request was signed in with; null for a session. */
+			apiToken: { id: string; scopes: ApiTokenScope[] } | null;
 		}
 	}
 }

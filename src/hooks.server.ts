@@ -2,7 +2,9 @@ import { redirect, type Handle, type HandleServerError, type ServerInit } from '
 import { sequence } from '@sveltejs/kit/hooks';
 import { apiError, MAX_REQUEST_BODY_BYTES, tooLarge } from '$lib/server/api';
 import { ATTACHMENT_MAX_BYTES } from '$lib/schemas/model';
+import { READINGS_MAX_BYTES } from '$lib/schemas/readings';
 import { authHandle } from '$lib/server/auth';
+import { authenticateBearer } from '$lib/server/auth/bearer';
 import { retryAfterSeconds, throttleKeys } from '$lib/server/auth/throttle';
 import { getDb } from '$lib/server/db';
 import { startMail } from '$lib/server/mail';
@@ -16,6 +18,7 @@ export const init: ServerInit = async () => {
 const attachDatabase: Handle = ({ event, resolve }) => {
 	event.locals.db = getDb();
 	event.locals.user = null;
+	event.locals.apiToken = null;
 	return resolve(event);
 };
 
@@ -48,9 +51,15 @@ const shapeApiErrors: Handle = async ({ event, resolve }) => {
 	return shaped;
 };
 
-/** Routes that take file uploads; the attachment's own limit is checked when it is stored. */
-const UPLOAD_ROUTES = new Set(['/(app)/models/[id]']);
-const MAX_UPLOAD_BODY_BYTES = ATTACHMENT_MAX_BYTES + 256 * 1024;
+/**
+ * Routes that take files, with the largest body each accepts; the file's own limit is checked
+ * again where it is read. Room is left for the multipart envelope.
+ */
+const UPLOAD_LIMITS = new Map([
+	['/(app)/models/[id]', ATTACHMENT_MAX_BYTES + 256 * 1024],
+	['/(app)/campaigns/[id]', READINGS_MAX_BYTES + 256 * 1024],
+	['/api/v1/campaigns/[id]/readings', READINGS_MAX_BYTES]
+]);
 
 /**
  * Refuses a declared body over the limit before anything reads it. adapter-node's own
@@ -58,9 +67,7 @@ const MAX_UPLOAD_BODY_BYTES = ATTACHMENT_MAX_BYTES + 256 * 1024;
  */
 const rejectOversizedBodies: Handle = ({ event, resolve }) => {
 	const declared = Number(event.request.headers.get('content-length') ?? 0);
-	const limit = UPLOAD_ROUTES.has(event.route.id ?? '')
-		? MAX_UPLOAD_BODY_BYTES
-		: MAX_REQUEST_BODY_BYTES;
+	const limit = UPLOAD_LIMITS.get(event.route.id ?? '') ?? MAX_REQUEST_BODY_BYTES;
 	return declared > limit ? tooLarge(limit) : resolve(event);
 };
 
@@ -88,6 +95,8 @@ const throttleCredentialPosts: Handle = async ({ event, resolve }) => {
 };
 
 const resolveUser: Handle = async ({ event, resolve }) => {
+	// A request signed with a token acts as its owner only, whatever cookie comes along.
+	if (event.locals.apiToken) return resolve(event);
 	const session = await event.locals.auth();
 	if (session?.user?.id) {
 		// The session callback in $lib/server/auth copies the token's session version here.
@@ -127,6 +136,7 @@ export const handle = sequence(
 	rejectOversizedBodies,
 	throttleCredentialPosts,
 	authHandle,
+	authenticateBearer,
 	resolveUser,
 	sendSignedOutToSignIn
 );

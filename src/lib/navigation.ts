@@ -1,4 +1,4 @@
-import type { Role } from './roles';
+import { ROLES, type Role } from './roles';
 
 export type NavItem = {
 	href:
@@ -9,7 +9,8 @@ export type NavItem = {
 		| '/facilities'
 		| '/admin'
 		| '/admin/outbox'
-		| '/calendar-feed';
+		| '/calendar-feed'
+		| '/account';
 	label: string;
 	roles: readonly Role[];
 };
@@ -31,7 +32,8 @@ export const NAV_ITEMS: readonly NavItem[] = [
 		roles: ['aerodynamicist', 'reviewer', 'operator', 'admin']
 	},
 	{ href: '/admin', label: 'People', roles: ['admin'] },
-	{ href: '/admin/outbox', label: 'Outbox', roles: ['admin'] }
+	{ href: '/admin/outbox', label: 'Outbox', roles: ['admin'] },
+	{ href: '/account', label: 'Account', roles: ROLES }
 ];
 
 export function navFor(roles: readonly Role[]): NavItem[] {

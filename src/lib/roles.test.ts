@@ -25,7 +25,8 @@ describe('navigation by role', () => {
 			'/campaigns',
 			'/models',
 			'/facilities',
-			'/calendar-feed'
+			'/calendar-feed',
+			'/account'
 		]);
 		expect(navFor([])).toEqual([]);
 	});

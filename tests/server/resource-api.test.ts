@@ -1,46 +1,13 @@
-import { isHttpError, type RequestEvent } from '@sveltejs/kit';
 import { describe, expect, it } from 'vitest';
 import { DEMO_FACILITIES } from '../../scripts/demo-scenario';
-import type { SessionUser } from '../../src/lib/roles';
-import type { Db } from '../../src/lib/server/db/open';
 import * as campaignItem from '../../src/routes/api/v1/campaigns/[id]/+server';
 import * as campaignMatrix from '../../src/routes/api/v1/campaigns/[id]/matrix/+server';
 import * as campaigns from '../../src/routes/api/v1/campaigns/+server';
 import * as facilities from '../../src/routes/api/v1/facilities/+server';
 import * as models from '../../src/routes/api/v1/models/+server';
+import { callRoute as call } from './call-route';
 import { campaignWorld } from './campaign-fixtures';
 import { tempDb } from './temp-db';
-
-// Each route's handler takes its own typed event; the tests build one event shape for all.
-type Handler = (event: never) => unknown;
-
-/** Calls a route handler as the framework would; a thrown error(...) becomes its status. */
-async function call(
-	handler: Handler,
-	db: Db,
-	user: SessionUser | null,
-	init: { body?: unknown; params?: Record<string, string>; search?: string } = {}
-) {
-	const request = new Request(`http://localhost/api${init.search ?? ''}`, {
-		method: init.body === undefined ? 'GET' : 'POST',
-		body: init.body === undefined ? undefined : JSON.stringify(init.body)
-	});
-	try {
-		const response = (await handler({
-			request,
-			url: new URL(request.url),
-			params: init.params ?? {},
-			locals: { db, user }
-		} as unknown as RequestEvent as never)) as Response;
-		return {
-			status: response.status,
-			body: response.status === 204 ? null : await response.json()
-		};
-	} catch (thrown) {
-		if (isHttpError(thrown)) return { status: thrown.status, body: thrown.body };
-		throw thrown;
-	}
-}
 
 describe('the resource API enforces roles and teams', () => {
 	it('creates and reads campaigns only within the team', async () => {

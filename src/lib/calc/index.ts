@@ -42,7 +42,21 @@ export type {
 	BlockageMethod,
 	TestSection
 } from './blockage';
-export { convertUnit as convert, knownUnits, pascalsToMmH2O } from './units';
+export {
+	convertUnit as convert,
+	knownUnits,
+	pascalsToMmH2O,
+	READING_PRESSURE_UNITS,
+	COLUMN_LENGTH_UNITS
+} from './units';
+export {
+	manometerPressure,
+	STANDARD_GRAVITY_MPS2,
+	CONVENTIONAL_WATER_DENSITY_KGM3
+} from './manometer';
+export type { ManometerReading } from './manometer';
+export { runLayout, locatePoint, pointAt } from './runs';
+export type { PlannedRun, RunIdentity, RunLayout, PointPosition } from './runs';
 export {
 	expandMatrix,
 	speedConditions,

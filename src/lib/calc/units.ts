@@ -3,13 +3,30 @@ import { CalcInputError, requireFinite } from './errors';
 
 /**
  * Pressure units convert-units lacks, in pascals (NIST SP 811, Appendix B.8): conventional
- * millimetre and inch of water (ρ = 1000 kg/m³, g = 9.80665 m/s²) and conventional mmHg.
+ * millimetre and inch of water (ρ = 1000 kg/m³, g = 9.80665 m/s²), conventional mmHg, and the
+ * millibar (exactly 100 Pa).
  */
 const EXTRA_PRESSURE_UNITS_PA: Record<string, number> = {
 	mmH2O: 9.80665,
 	inH2O: 249.0889,
-	mmHg: 133.3224
+	mmHg: 133.3224,
+	mbar: 100
 };
+
+/** The pressure units manometer banks, scanners and barometers report in. */
+export const READING_PRESSURE_UNITS = [
+	'Pa',
+	'kPa',
+	'hPa',
+	'mbar',
+	'mmH2O',
+	'inH2O',
+	'mmHg',
+	'psi'
+] as const;
+
+/** Units a manometer's column length may be read in. */
+export const COLUMN_LENGTH_UNITS = ['mm', 'cm', 'm', 'in'] as const;
 
 const catalogue = convertUnits();
 

@@ -1,12 +1,12 @@
-import type { FacilityTiming, MatrixPlan } from '../calc';
+import {
+	runLayout,
+	type FacilityTiming,
+	type MatrixPlan,
+	type PlannedRun,
+	type RunIdentity
+} from '../calc';
 
-export type RunSheetLine = {
-	run: number;
-	configurationId: string;
-	yaw_deg: number;
-	speed_mps: number;
-	planeId: string;
-	repeat: number;
+export type RunSheetLine = RunIdentity & {
 	points: number;
 	/** Tunnel time from the start of the campaign when this traverse begins. */
 	start_s: number;
@@ -25,43 +25,38 @@ export function runSheet(
 ): { lines: RunSheetLine[]; end_s: number } {
 	const lines: RunSheetLine[] = [];
 	let t = timing.setUp_s;
-	let run = 0;
-	plan.configurations.forEach((configuration, ci) => {
-		plan.yawAngles_deg.forEach((yaw_deg, yi) => {
-			plan.speeds_mps.forEach((speed_mps, si) => {
-				plan.planes.forEach((plane, pi) => {
-					const points = plane.grid.y_m.length * plane.grid.z_m.length;
-					for (let repeat = 1; repeat <= plan.repeats; repeat++) {
-						const before: RunSheetLine['before'] = [];
-						const firstOfSpeed = pi === 0 && repeat === 1;
-						if (firstOfSpeed && si === 0 && yi === 0 && ci > 0) {
-							before.push('model change');
-							t += timing.modelChange_s;
-						}
-						if (firstOfSpeed && si === 0 && yi > 0) {
-							before.push('yaw change');
-							t += timing.yawChange_s;
-						}
-						if (firstOfSpeed) {
-							before.push('settling');
-							t += timing.settling_s;
-						}
-						lines.push({
-							run: ++run,
-							configurationId: configuration.id,
-							yaw_deg,
-							speed_mps,
-							planeId: plane.id,
-							repeat,
-							points,
-							start_s: t,
-							before
-						});
-						t += points * (timing.traverseMove_s + plan.dwellPerPoint_s);
-					}
-				});
-			});
+	let previous: PlannedRun | undefined;
+	for (const r of runLayout(plan).runs) {
+		const before: RunSheetLine['before'] = [];
+		const newConfiguration = previous && r.configurationId !== previous.configurationId;
+		const newYaw = previous && !newConfiguration && r.yaw_deg !== previous.yaw_deg;
+		if (newConfiguration) {
+			before.push('model change');
+			t += timing.modelChange_s;
+		}
+		if (newYaw) {
+			before.push('yaw change');
+			t += timing.yawChange_s;
+		}
+		if (!previous || newConfiguration || newYaw || r.speed_mps !== previous.speed_mps) {
+			before.push('settling');
+			t += timing.settling_s;
+		}
+		const points = r.rows * r.columns;
+		const { run, configurationId, yaw_deg, speed_mps, planeId, repeat } = r;
+		lines.push({
+			run,
+			configurationId,
+			yaw_deg,
+			speed_mps,
+			planeId,
+			repeat,
+			points,
+			start_s: t,
+			before
 		});
-	});
+		t += points * (timing.traverseMove_s + plan.dwellPerPoint_s);
+		previous = r;
+	}
 	return { lines, end_s: t + timing.tearDown_s };
 }

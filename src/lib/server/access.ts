@@ -1,5 +1,6 @@
 import { gt, inArray, or, sql, type SQL } from 'drizzle-orm';
 import type { SessionUser } from '../roles';
+import type { ApiTokenScope } from '../schemas/api-token';
 import type { CampaignState } from '../workflow';
 import { campaign } from './db/schema';
 
@@ -62,4 +63,39 @@ export function canEditCampaign(viewer: SessionUser, c: CampaignAccessFacts): bo
 
 export function canEditFacilities(viewer: SessionUser): boolean {
 	return isAdmin(viewer) || viewer.roles.includes('operator');
+}
+
+/**
+ * Readings come back from the campaign's own team and from the facility's operators, whose
+ * acquisition computer posts them; reviewers read them. Only an approved revision takes any.
+ */
+export function canUploadReadings(
+	viewer: SessionUser,
+	c: CampaignAccessFacts & { approvedRevisionId: string | null }
+): boolean {
+	if (!c.approvedRevisionId || !canReadCampaign(viewer, c)) return false;
+	return (
+		isAdmin(viewer) ||
+		viewer.roles.includes('operator') ||
+		(viewer.roles.includes('aerodynamicist') && inTeam(viewer, c.teamId))
+	);
+}
+
+/**
+ * The API routes a personal token may call, and the scope each method needs. Everything else,
+ * token management included, takes a signed-in session only, so a leaked token cannot mint
+ * more tokens or reach the pages.
+ */
+const TOKEN_ROUTES = new Map<string, Partial<Record<string, ApiTokenScope>>>([
+	['/api/v1/campaigns', { GET: 'campaigns:read' }],
+	['/api/v1/campaigns/[id]', { GET: 'campaigns:read' }],
+	['/api/v1/campaigns/[id]/matrix', { GET: 'campaigns:read' }],
+	['/api/v1/campaigns/[id]/revisions', { GET: 'campaigns:read' }],
+	['/api/v1/campaigns/[id]/revisions/[n]', { GET: 'campaigns:read' }],
+	['/api/v1/campaigns/[id]/readings', { GET: 'readings:read', POST: 'readings:write' }]
+]);
+
+/** The scope a token needs for `method` on SvelteKit route `routeId`; null if tokens are refused. */
+export function tokenScopeFor(method: string, routeId: string | null): ApiTokenScope | null {
+	return (routeId && TOKEN_ROUTES.get(routeId)?.[method]) || null;
 }

@@ -64,6 +64,29 @@ export async function readJson<S extends z.ZodType>(
 	return { ok: true, data: parsed.data };
 }
 
+/**
+ * The raw body, read as it streams in and abandoned at `limit_bytes`, so a body sent without a
+ * length cannot make the server hold more than the limit. Null when it is over.
+ */
+export async function readBody(request: Request, limit_bytes: number): Promise<Uint8Array | null> {
+	if (Number(request.headers.get('content-length') ?? 0) > limit_bytes) return null;
+	if (!request.body) return new Uint8Array(0);
+	const chunks: Uint8Array[] = [];
+	let size = 0;
+	const reader = request.body.getReader();
+	for (;;) {
+		const { done, value } = await reader.read();
+		if (done) break;
+		size += value.byteLength;
+		if (size > limit_bytes) {
+			await reader.cancel();
+			return null;
+		}
+		chunks.push(value);
+	}
+	return Buffer.concat(chunks, size);
+}
+
 export function tooLarge(limit_bytes = MAX_REQUEST_BODY_BYTES): Response {
 	return apiError(
 		413,

@@ -1,10 +1,10 @@
 import { env } from '$env/dynamic/private';
-import { diskBlobStore, type BlobStore } from './storage';
+import { attachmentsDirFromEnv, diskBlobStore, type BlobStore } from './storage';
 
 let store: BlobStore | undefined;
 
 /** The app's attachment store, in ATTACHMENTS_DIR (default data/attachments). */
 export function attachmentStore(): BlobStore {
-	store ??= diskBlobStore(env.ATTACHMENTS_DIR || 'data/attachments');
+	store ??= diskBlobStore(attachmentsDirFromEnv(env));
 	return store;
 }

@@ -13,6 +13,10 @@ export type BlobStore = {
 	remove(key: string): Promise<void>;
 };
 
+export function attachmentsDirFromEnv(env: Record<string, string | undefined>): string {
+	return env.ATTACHMENTS_DIR?.trim() || 'data/attachments';
+}
+
 const KEY = /^[a-f0-9]{32}$/;
 
 export function diskBlobStore(folder: string): BlobStore {

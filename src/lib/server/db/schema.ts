@@ -15,6 +15,8 @@ import type { CampaignDefinition } from '../../schemas/campaign';
 import type { NoteAnchor, RevisionSnapshot } from '../../review/types';
 import { BOOKING_STATES, CLOSURE_KINDS } from '../../booking/rules';
 import { CAMPAIGN_ACTIONS, CAMPAIGN_STATES, VERDICTS } from '../../workflow';
+import type { ApiTokenScope } from '../../schemas/api-token';
+import { READING_KINDS } from '../../schemas/readings';
 
 const id = () =>
 	text('id')
@@ -287,7 +289,11 @@ export const reviewNote = sqliteTable(
 	(t) => [index('review_note_decision').on(t.decisionId)]
 );
 
-/** Every transition and decision of a campaign, kept for good. */
+/** Audit entries that are not workflow transitions: readings arriving or replacing others. */
+export const READINGS_ACTIONS = ['upload-readings', 'replace-readings'] as const;
+const AUDIT_ACTIONS = [...CAMPAIGN_ACTIONS, ...READINGS_ACTIONS] as const;
+
+/** Every transition, decision and readings upload of a campaign, kept for good. */
 export const auditEvent = sqliteTable(
 	'audit_event',
 	{
@@ -295,7 +301,7 @@ export const auditEvent = sqliteTable(
 		campaignId: text('campaign_id').notNull(),
 		actorId: text('actor_id').references(() => user.id, { onDelete: 'set null' }),
 		actorName: text('actor_name').notNull(),
-		action: text('action', { enum: CAMPAIGN_ACTIONS }).notNull(),
+		action: text('action', { enum: AUDIT_ACTIONS }).notNull(),
 		fromState: text('from_state', { enum: CAMPAIGN_STATES }).notNull(),
 		toState: text('to_state', { enum: CAMPAIGN_STATES }).notNull(),
 		revisionNumber: integer('revision_number'),
@@ -399,3 +405,119 @@ export const calendarFeed = sqliteTable('calendar_feed', {
 	tokenHash: text('token_hash').notNull().unique(),
 	createdAt: createdAt()
 });
+
+/** A personal API token; it acts as its owner within its scopes. Only a hash is stored. */
+export const apiToken = sqliteTable(
+	'api_token',
+	{
+		id: id(),
+		userId: text('user_id')
+			.notNull()
+			.references(() => user.id, { onDelete: 'cascade' }),
+		name: text('name').notNull(),
+		tokenHash: text('token_hash').notNull(),
+		scopes: text('scopes', { mode: 'json' }).$type<ApiTokenScope[]>().notNull(),
+		expiresAt: integer('expires_at', { mode: 'timestamp_ms' }),
+		lastUsedAt: integer('last_used_at', { mode: 'timestamp_ms' }),
+		revokedAt: integer('revoked_at', { mode: 'timestamp_ms' }),
+		createdAt: createdAt()
+	},
+	(t) => [uniqueIndex('api_token_hash').on(t.tokenHash), index('api_token_user').on(t.userId)]
+);
+
+/**
+ * One readings file as it arrived, kept for provenance: the original bytes sit in attachment
+ * storage under `storageKey`, with their SHA-256.
+ */
+export const readingsUpload = sqliteTable(
+	'readings_upload',
+	{
+		id: id(),
+		campaignId: text('campaign_id')
+			.notNull()
+			.references(() => campaign.id, { onDelete: 'restrict' }),
+		revisionId: text('revision_id')
+			.notNull()
+			.references(() => campaignRevision.id, { onDelete: 'restrict' }),
+		uploadedBy: text('uploaded_by').references(() => user.id, { onDelete: 'set null' }),
+		uploaderName: text('uploader_name').notNull(),
+		/** `page` for an upload by hand, `api` for the acquisition computer or another client. */
+		channel: text('channel', { enum: ['page', 'api'] }).notNull(),
+		fileName: text('file_name').notNull(),
+		mediaType: text('media_type').notNull(),
+		size_bytes: integer('size_bytes').notNull(),
+		sha256: text('sha256').notNull(),
+		storageKey: text('storage_key').notNull().unique(),
+		readingCount: integer('reading_count').notNull(),
+		runCount: integer('run_count').notNull(),
+		/** Readings of earlier uploads this one replaced. */
+		replacedCount: integer('replaced_count').notNull().default(0),
+		createdAt: createdAt()
+	},
+	(t) => [index('readings_upload_campaign').on(t.campaignId, t.createdAt)]
+);
+
+/**
+ * One probe reading of one planned point, as uploaded and converted to pascals. A point holds
+ * at most one current reading of each kind; a replaced one is kept with `supersededBy` set.
+ */
+export const reading = sqliteTable(
+	'reading',
+	{
+		id: integer('id').primaryKey({ autoIncrement: true }),
+		revisionId: text('revision_id')
+			.notNull()
+			.references(() => campaignRevision.id, { onDelete: 'restrict' }),
+		uploadId: text('upload_id')
+			.notNull()
+			.references(() => readingsUpload.id, { onDelete: 'restrict' }),
+		point: integer('point').notNull(),
+		run: integer('run').notNull(),
+		kind: text('kind', { enum: READING_KINDS }).notNull(),
+		/** Gauge pressure against the free-stream static for static and total, else absolute. */
+		pressure_Pa: real('pressure_pa').notNull(),
+		value: real('value').notNull(),
+		unit: text('unit').notNull(),
+		inclination_deg: real('inclination_deg'),
+		fluidDensity_kgm3: real('fluid_density_kgm3'),
+		measuredAt: integer('measured_at', { mode: 'timestamp_ms' }),
+		note: text('note'),
+		supersededBy: text('superseded_by').references(() => readingsUpload.id, {
+			onDelete: 'restrict'
+		})
+	},
+	(t) => [
+		// The only index: each run is a contiguous range of point numbers, so reading a run or a
+		// revision's coverage seeks this one too, and every further index slows bulk uploads.
+		uniqueIndex('reading_current')
+			.on(t.revisionId, t.point, t.kind)
+			.where(sql`superseded_by is null`)
+	]
+);
+
+/** A run's reference conditions as uploaded: one current set per run, replaced ones kept. */
+export const runCondition = sqliteTable(
+	'run_condition',
+	{
+		id: integer('id').primaryKey({ autoIncrement: true }),
+		revisionId: text('revision_id')
+			.notNull()
+			.references(() => campaignRevision.id, { onDelete: 'restrict' }),
+		uploadId: text('upload_id')
+			.notNull()
+			.references(() => readingsUpload.id, { onDelete: 'restrict' }),
+		run: integer('run').notNull(),
+		referenceDynamicPressure_Pa: real('reference_dynamic_pressure_pa').notNull(),
+		airTemperature_K: real('air_temperature_k').notNull(),
+		barometricPressure_Pa: real('barometric_pressure_pa').notNull(),
+		relativeHumidity: real('relative_humidity'),
+		supersededBy: text('superseded_by').references(() => readingsUpload.id, {
+			onDelete: 'restrict'
+		})
+	},
+	(t) => [
+		uniqueIndex('run_condition_current')
+			.on(t.revisionId, t.run)
+			.where(sql`superseded_by is null`)
+	]
+);

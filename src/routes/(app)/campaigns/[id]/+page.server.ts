@@ -13,6 +13,9 @@ import {
 	returnNotes,
 	submitCampaign
 } from '$lib/server/review';
+import { READINGS_MAX_BYTES } from '$lib/schemas/readings';
+import { attachmentStore } from '$lib/server/attachments';
+import { readingsOverview, receiveReadings } from '$lib/server/readings';
 import { availableActions } from '$lib/workflow';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -41,7 +44,8 @@ export const load: PageServerLoad = ({ locals, params }) => {
 		revisions: listRevisions(locals.db, user, found.id) ?? [],
 		trail: auditTrail(locals.db, user, found.id) ?? [],
 		returned: returnNotes(locals.db, user, found.id),
-		slots: campaignSlots(locals.db, found.id)
+		slots: campaignSlots(locals.db, found.id),
+		readings: readingsOverview(locals.db, user, found.id)
 	};
 };
 
@@ -59,6 +63,40 @@ export const actions: Actions = {
 	},
 	withdraw: ({ locals, params }) => move(locals, params.id, 'withdraw'),
 	revise: ({ locals, params }) => move(locals, params.id, 'revise'),
+	/** The upload form without JavaScript; with it, the page posts to the API and shows progress. */
+	readings: async ({ locals, params, request }) => {
+		const user = requireUser(locals);
+		const form = await request.formData().catch(() => null);
+		const file = form?.get('file');
+		if (!(file instanceof File) || file.size === 0)
+			return fail(400, { readingsAnswer: { message: 'Choose a readings file to upload.' } });
+		if (file.size > READINGS_MAX_BYTES)
+			return fail(413, {
+				readingsAnswer: {
+					message: `The file is over ${READINGS_MAX_BYTES / 1024 / 1024} MiB; split it by runs.`
+				}
+			});
+		const received = await receiveReadings(
+			locals.db,
+			attachmentStore(),
+			user,
+			params.id,
+			{
+				fileName: file.name.slice(0, 200) || 'readings.csv',
+				mediaType: file.name.toLowerCase().endsWith('.json') ? 'application/json' : 'text/csv',
+				bytes: new Uint8Array(await file.arrayBuffer()),
+				channel: 'page'
+			},
+			{ replace: form?.get('replace') === 'on' }
+		);
+		if (!received.ok) {
+			const { message, problems, problemCount } = received;
+			return fail(STATUS_OF_REFUSAL[received.code], {
+				readingsAnswer: { message, problems, problemCount }
+			});
+		}
+		return { readingsStored: received.readingCount };
+	},
 	delete: ({ locals, params }) => {
 		const user = requireRole(locals, 'aerodynamicist');
 		const removed = deleteCampaign(locals.db, user, params.id);

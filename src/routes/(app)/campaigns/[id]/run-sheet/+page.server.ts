@@ -4,6 +4,7 @@ import { utcMinute } from '$lib/format';
 import { figuresOf } from '$lib/server/campaign-export';
 import { getCampaignFor } from '$lib/server/campaigns';
 import { requireUser } from '$lib/server/guards';
+import { readingsOverview } from '$lib/server/readings';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ locals, params }) => {
@@ -17,6 +18,7 @@ export const load: PageServerLoad = ({ locals, params }) => {
 		speeds: figures.speeds,
 		tunnelAir: figures.tunnelAir,
 		findings: figures.findings,
-		printedAt: utcMinute(new Date())
+		printedAt: utcMinute(new Date()),
+		readings: readingsOverview(locals.db, user, found.id)
 	};
 };
