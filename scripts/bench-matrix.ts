@@ -4,20 +4,15 @@
  * sort, and the gzipped size of the JavaScript the page loaded. Figures vary between runs.
  */
 import { gzipSync } from 'node:zlib';
-import { DEMO_PASSWORD } from './demo-scenario';
 import { startSeededApp } from './app-server';
-import { launchChromium } from './chromium';
+import { launchChromium, signInAsDemo } from './chromium';
 
 const app = await startSeededApp({ quiet: true });
 const browser = await launchChromium();
 try {
 	const context = await browser.newContext({ viewport: { width: 1440, height: 1000 } });
 	const page = await context.newPage();
-	await page.goto(`${app.baseUrl}/signin`);
-	await page.getByLabel('E-mail').fill('aero@demo.test');
-	await page.getByLabel('Password').fill(DEMO_PASSWORD);
-	await page.getByRole('button', { name: 'Sign in' }).click();
-	await page.waitForURL(`${app.baseUrl}/campaigns`);
+	await signInAsDemo(page, app.baseUrl, 'aero@demo.test');
 	const link = page.getByRole('link', { name: 'AM-7 rear-wing wake survey' });
 	const href = await link.getAttribute('href');
 

@@ -1,75 +1,20 @@
 /**
  * Benchmark of readings intake: parses, checks and stores 100 000 readings of a 108 000-point
  * approved campaign, five times on fresh databases, and prints the median and range of each
- * phase, rows per second and memory growth. The floor, measured in the same run, is csv-parse
+ * phase, rows per second and memory growth. The floor, measured in the same run, is Papa Parse
  * reading the same bytes plus a bare insert of the same rows in one transaction: the work that
  * no intake can skip. The ratio says what checking and bookkeeping cost on top of it.
  */
 import Papa from 'papaparse';
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { rmSync } from 'node:fs';
 import { join } from 'node:path';
-import { createCampaign } from '../src/lib/server/campaigns';
-import { migrateDatabase, openDatabase, type Db } from '../src/lib/server/db/open';
-import {
-	campaign,
-	facility,
-	reading,
-	scaleModel,
-	team,
-	teamMember,
-	user,
-	userRole
-} from '../src/lib/server/db/schema';
+import { campaign, reading } from '../src/lib/server/db/schema';
 import { approvedLayout, receiveReadings, type ReceivePhase } from '../src/lib/server/readings';
-import { decideRevision, submitCampaign } from '../src/lib/server/review';
 import { diskBlobStore } from '../src/lib/server/storage';
-import { sessionUser } from '../src/lib/server/users';
-import { DEMO_CAMPAIGNS, DEMO_FACILITIES, DEMO_MODELS } from './demo-scenario';
+import { approvedWorld, freshDb } from './bench-world';
 
 const READINGS = 100_000;
 const REPEATS = 5;
-const ORIGIN = 'http://localhost';
-
-function person(db: Db, email: string, roles: ('aerodynamicist' | 'reviewer')[], teamId: string) {
-	const id = db.insert(user).values({ email, name: email }).returning({ id: user.id }).get().id;
-	db.insert(userRole)
-		.values(roles.map((role) => ({ userId: id, role })))
-		.run();
-	db.insert(teamMember).values({ teamId, userId: id }).run();
-	return sessionUser(db, id, 1)!;
-}
-
-/** An approved campaign of the demo's wake survey, run twice over: 108 000 points. */
-function approvedWorld(db: Db) {
-	const client = db.insert(team).values({ name: 'Client', kind: 'client' }).returning().get().id;
-	const staff = db.insert(team).values({ name: 'Staff', kind: 'staff' }).returning().get().id;
-	const aero = person(db, 'aero@example.org', ['aerodynamicist'], client);
-	const reviewer = person(db, 'reviewer@example.org', ['reviewer'], staff);
-	const facilityId = db.insert(facility).values(DEMO_FACILITIES[0]!).returning().get().id;
-	const modelId = db
-		.insert(scaleModel)
-		.values({ ...DEMO_MODELS[0]!.model, teamId: client })
-		.returning()
-		.get().id;
-	const created = createCampaign(db, aero, {
-		...DEMO_CAMPAIGNS[0]!.input,
-		repeats: 2,
-		modelId,
-		facilityId
-	});
-	if (!created.ok) throw new Error(created.message);
-	submitCampaign(db, aero, created.id, ORIGIN);
-	const decided = decideRevision(
-		db,
-		reviewer,
-		created.id,
-		{ revision: 1, verdict: 'approve', summary: '', notes: [] },
-		ORIGIN
-	);
-	if (!decided.ok) throw new Error(decided.message);
-	return { aero, campaignId: created.id };
-}
 
 function readingsCsv(pointCount: number): Uint8Array {
 	const lines = [
@@ -85,13 +30,6 @@ function readingsCsv(pointCount: number): Uint8Array {
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
 const fmt = (xs: number[], unit = 'ms', digits = 0) =>
 	`${median(xs).toFixed(digits)} ${unit} (${Math.min(...xs).toFixed(digits)}–${Math.max(...xs).toFixed(digits)})`;
-
-function freshDb() {
-	const dir = mkdtempSync(join(tmpdir(), 'tunnelwright-bench-'));
-	const db = openDatabase(join(dir, 'bench.db'));
-	migrateDatabase(db);
-	return { db, dir };
-}
 
 const bytes = readingsCsv(READINGS);
 const phases: Record<ReceivePhase | 'total' | 'floor', number[]> = {

@@ -186,7 +186,9 @@ const approvedDemo = db
 	.get()!;
 if (!db.select().from(booking).where(eq(booking.campaignId, approvedDemo.id)).get()) {
 	const [waiting] = bookableCampaigns(db, plover.id).filter((c) => c.id === approvedDemo.id);
-	for (const slot of proposeFor(db, plover.id, waiting!.occupancy_s, tomorrow.toMillis())) {
+	const proposal = proposeFor(db, plover.id, waiting!.occupancy_s, tomorrow.toMillis());
+	if (!proposal.ok) throw new Error(`Demo booking: ${proposal.message}`);
+	for (const slot of proposal.slots) {
 		const booked = createBooking(
 			db,
 			operator,

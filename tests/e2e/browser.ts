@@ -18,3 +18,11 @@ export async function signIn(page: Page, email: string, password = DEMO_PASSWORD
 	await page.getByLabel('Password').fill(password);
 	await page.getByRole('button', { name: 'Sign in' }).click();
 }
+
+/** A fresh browser context signed in as `email`, on the page sign-in lands on. */
+export async function signedInPage(browser: Browser, email: string): Promise<Page> {
+	const page = await (await browser.newContext({ acceptDownloads: true })).newPage();
+	await signIn(page, email);
+	await page.waitForURL((u) => !u.pathname.startsWith('/signin'));
+	return page;
+}

@@ -1,10 +1,10 @@
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_READINGS } from '../../scripts/demo-scenario';
-import { launchBrowser, signIn, url } from './browser';
+import { launchBrowser, signedInPage, url } from './browser';
 
 let browser: Browser;
 let closeBrowser: () => Promise<void>;
@@ -14,12 +14,7 @@ beforeAll(async () => {
 });
 afterAll(async () => closeBrowser?.());
 
-async function as(email: string): Promise<Page> {
-	const page = await (await browser.newContext({ acceptDownloads: true })).newPage();
-	await signIn(page, email);
-	await page.waitForURL((u) => !u.pathname.startsWith('/signin'));
-	return page;
-}
+const as = (email: string) => signedInPage(browser, email);
 
 /** Fills the template's rows of one run with readings, as the demo's wake would give them. */
 function fillRun(template: string, run: number): string {

@@ -328,7 +328,7 @@ describe('the bearer handle', () => {
 		const other = issue(db, w.aeroB, ['campaigns:read']);
 		const mine = await throughBearer(db, { ...route, authorization: `Bearer ${own.token}` }, read);
 		expect(mine.status).toBe(200);
-		expect(mine.body.campaign.id).toBe(campaign.id);
+		expect(mine.body.id).toBe(campaign.id);
 		const theirs = await throughBearer(
 			db,
 			{ ...route, authorization: `Bearer ${other.token}` },

@@ -1,6 +1,7 @@
 import { DateTime } from 'luxon';
 import { describe, expect, it } from 'vitest';
-import { booking } from '../../src/lib/server/db/schema';
+import { facilityDefaults, facilitySchema } from '../../src/lib/schemas/facility';
+import { booking, facility } from '../../src/lib/server/db/schema';
 import {
 	bookableCampaigns,
 	changeBooking,
@@ -191,12 +192,67 @@ describe('booking rules', () => {
 			start: at('2027-01-05T00:00'),
 			end: at('2027-01-06T00:00')
 		});
-		const slots = proposeFor(db, w.tunnel, 10 * 3600, at('2027-01-04T07:00').getTime());
+		const proposal = proposeFor(db, w.tunnel, 10 * 3600, at('2027-01-04T07:00').getTime());
+		if (!proposal.ok) throw new Error(proposal.message);
 		expect(
-			slots.map((s) => [new Date(s.start).toISOString(), new Date(s.end).toISOString()])
+			proposal.slots.map((s) => [new Date(s.start).toISOString(), new Date(s.end).toISOString()])
 		).toEqual([
 			['2027-01-04T11:00:00.000Z', '2027-01-04T18:00:00.000Z'],
 			['2027-01-06T06:00:00.000Z', '2027-01-06T09:00:00.000Z']
 		]);
+	});
+
+	it('cuts proposals by the facility’s minimum slot and step, and each one can be booked', () => {
+		const { db, w, book } = approvedWorld();
+		// Rule values for this test: no slot under 2 h, on the half hours of the tunnel's clock.
+		db.update(facility)
+			.set({ minimumSlot_s: 2 * 3600, slotStep_s: 30 * 60 })
+			.run();
+		book('2027-01-04T07:00', '2027-01-04T12:10');
+		const local = (t: number) =>
+			DateTime.fromMillis(t, { zone: 'Europe/Berlin' }).toFormat('ccc HH:mm');
+		// 7 h 40 min rounds up to 8 h. Monday's free 12:30–19:00 would leave 1 h 30 min for Tuesday,
+		// under the minimum, so Monday stops at 18:30 and Tuesday gets the 2 h minimum.
+		const proposal = proposeFor(db, w.tunnel, 7 * 3600 + 40 * 60, at('2027-01-04T07:00').getTime());
+		if (!proposal.ok) throw new Error(proposal.message);
+		expect(proposal.slots.map((s) => [local(s.start), local(s.end)])).toEqual([
+			['Mon 12:30', 'Mon 18:30'],
+			['Tue 07:00', 'Tue 09:00']
+		]);
+		for (const slot of proposal.slots) {
+			const booked = book(
+				DateTime.fromMillis(slot.start, { zone: 'Europe/Berlin' }).toISO()!,
+				DateTime.fromMillis(slot.end, { zone: 'Europe/Berlin' }).toISO()!
+			);
+			expect(booked.ok).toBe(true);
+		}
+	});
+
+	it('refuses a proposal the time does not fit, saying why', () => {
+		const { db, w } = approvedWorld();
+		db.update(facility)
+			.set({ minimumSlot_s: 2 * 3600, slotStep_s: 15 * 60 })
+			.run();
+		expect(proposeFor(db, w.tunnel, 45 * 60, at('2027-01-04T07:00').getTime())).toMatchObject({
+			ok: false,
+			code: 'conflict',
+			message: expect.stringMatching(/45 min still to book does not fit .* 2 h 00 min/)
+		});
+	});
+});
+
+describe('facility slot settings', () => {
+	it('default to a 1 h minimum slot on a 15 min step, and take the step in whole minutes', () => {
+		const { minimumSlot_s: _, slotStep_s: __, ...older } = facilityDefaults();
+		expect(facilitySchema.parse({ ...older, name: 'T' })).toMatchObject({
+			minimumSlot_s: 3600,
+			slotStep_s: 900
+		});
+		const seconds = facilitySchema.safeParse({ ...facilityDefaults(), name: 'T', slotStep_s: 90 });
+		expect(seconds.success).toBe(false);
+		expect(seconds.error?.issues[0]).toMatchObject({
+			path: ['slotStep_s'],
+			message: 'Use whole minutes.'
+		});
 	});
 });

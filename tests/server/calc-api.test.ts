@@ -90,9 +90,13 @@ describe('POST /api/v1/calc/*', () => {
 		expect(Object.keys(error.fields).sort()).toEqual([
 			'fullScaleLength.unit',
 			'scale',
-			'tunnelAir'
+			'tunnelAir.geopotentialAltitude'
 		]);
-		expect(error.fields.tunnelAir[0]).toMatch(/geopotentialAltitude_m = 200000 .*\[-2000, 84852\]/);
+		expect(error.fields['tunnelAir.geopotentialAltitude'][0]).toMatch(
+			/^geopotentialAltitude = 200000 .*\[-2000, 84852\]/
+		);
+		// The request's own names only: no unit-suffixed core parameter, no bare `_`.
+		expect(JSON.stringify(error)).not.toMatch(/_m\b|_mps|"_"/);
 	});
 
 	it('answers 400 for input only the core can refuse, naming the parameter', async () => {
@@ -101,9 +105,23 @@ describe('POST /api/v1/calc/*', () => {
 			section: { kind: 'closed', width: 2, height: 1.5 }
 		});
 		expect(response.status).toBe(400);
-		expect((await response.json()).error.fields.frontalArea_m2[0]).toMatch(
-			/less than the section area/
+		expect((await response.json()).error.fields.frontalArea[0]).toMatch(
+			/^frontalArea = 5 is outside .*less than the section area/
 		);
+	});
+
+	it('refuses a bare temperature that can only be meant as °C, naming the unit', async () => {
+		const response = await post(similarity, {
+			scale: 0.25,
+			fullScaleLength: 4,
+			fullScaleSpeed: 30,
+			modelSpeed: 30,
+			fullScaleAir: sea,
+			tunnelAir: { model: 'measured', temperature: 20, pressure: 101325 }
+		});
+		expect(response.status).toBe(400);
+		const { error } = await response.json();
+		expect(error.fields['tunnelAir.temperature'][0]).toMatch(/kelvin.*"unit": "C"/);
 	});
 
 	it('answers 400 for malformed JSON and 413 for an oversized body', async () => {

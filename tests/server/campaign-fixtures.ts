@@ -56,16 +56,14 @@ export function campaignWorld(db: Db) {
 	return { clientA, clientB, aeroA, aeroA2, aeroB, reviewer, admin, tunnel, modelA, modelB, input };
 }
 
-/** The campaign world with an operator and one campaign of client A submitted and approved. */
-export function approvedCampaignWorld(db: Db, origin: string) {
-	const w = campaignWorld(db);
-	const operator: SessionUser = {
-		...w.reviewer,
-		id: addUser(db, 'op@example.org', ['operator']),
-		email: 'op@example.org',
-		roles: ['operator']
-	};
-	const created = createCampaign(db, w.aeroA, w.input());
+/** Drafts a campaign of client A from `input`, submits it and has the reviewer approve it. */
+export function approvedCampaign(
+	db: Db,
+	w: ReturnType<typeof campaignWorld>,
+	input: CampaignInput,
+	origin: string
+): string {
+	const created = createCampaign(db, w.aeroA, input);
 	if (!created.ok) throw new Error(created.message);
 	submitCampaign(db, w.aeroA, created.id, origin);
 	const approved = decideRevision(
@@ -76,5 +74,17 @@ export function approvedCampaignWorld(db: Db, origin: string) {
 		origin
 	);
 	if (!approved.ok) throw new Error(approved.message);
-	return { ...w, operator, campaignId: created.id };
+	return created.id;
+}
+
+/** The campaign world with an operator and one campaign of client A submitted and approved. */
+export function approvedCampaignWorld(db: Db, origin: string) {
+	const w = campaignWorld(db);
+	const operator: SessionUser = {
+		...w.reviewer,
+		id: addUser(db, 'op@example.org', ['operator']),
+		email: 'op@example.org',
+		roles: ['operator']
+	};
+	return { ...w, operator, campaignId: approvedCampaign(db, w, w.input(), origin) };
 }

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { DEMO_FACILITIES } from '../../scripts/demo-scenario';
+import { campaignSchema } from '../../src/lib/schemas/campaign';
 import * as campaignItem from '../../src/routes/api/v1/campaigns/[id]/+server';
 import * as campaignMatrix from '../../src/routes/api/v1/campaigns/[id]/matrix/+server';
 import * as campaigns from '../../src/routes/api/v1/campaigns/+server';
@@ -46,6 +47,40 @@ describe('the resource API enforces roles and teams', () => {
 
 		expect((await call(campaignItem.DELETE, db, w.aeroA, { params })).status).toBe(204);
 		expect((await call(campaignItem.GET, db, w.aeroA, { params })).status).toBe(404);
+	});
+
+	it('answers GET in the shape PUT takes: read, change one field, write back', async () => {
+		const db = tempDb();
+		const w = campaignWorld(db);
+		const created = await call(campaigns.POST, db, w.aeroA, { body: w.input() });
+		const params = { id: created.body.id as string };
+		const read = await call(campaignItem.GET, db, w.aeroA, { params });
+		expect(read.status).toBe(200);
+		expect(campaignSchema.parse(read.body)).toEqual(campaignSchema.parse(w.input()));
+		// Everything else is read-only and named outside the schema, so PUT's parse drops it.
+		expect(Object.keys(read.body).filter((k) => !(k in campaignSchema.shape))).toEqual([
+			'id',
+			'state',
+			'teamId',
+			'ownerId',
+			'ownerName',
+			'modelName',
+			'facilityName',
+			'lastRevision',
+			'approvedRevisionId',
+			'createdAt',
+			'updatedAt'
+		]);
+
+		const changed = { ...read.body, repeats: read.body.repeats + 1 };
+		const written = await call(campaignItem.PUT, db, w.aeroA, {
+			method: 'PUT',
+			params,
+			body: { ...changed, id: 'someone-else', state: 'approved', lastRevision: 7 }
+		});
+		expect(written.status).toBe(200);
+		const after = await call(campaignItem.GET, db, w.aeroA, { params });
+		expect({ ...after.body, updatedAt: changed.updatedAt }).toEqual(changed);
 	});
 
 	it('answers 400 with field messages and writes nothing on bad input', async () => {

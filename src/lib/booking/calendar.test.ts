@@ -12,6 +12,9 @@ const WEEKDAYS = {
 } as const;
 const hours = WEEKDAYS as unknown as Parameters<typeof openingWindows>[0];
 const utc = (iso: string) => DateTime.fromISO(iso, { zone: 'utc' }).toMillis();
+// Product rule values for these tests: no proposed slot under an hour, quarter-hour clock grid.
+const CUTS = { minimumSlot_s: 3600, slotStep_s: 900 };
+const HOUR_MS = 3600_000;
 
 describe('overlap rule', () => {
 	it('lets slots touch but not overlap by a second', () => {
@@ -78,30 +81,138 @@ describe('proposing slots', () => {
 	it('fills the first free opening time, around bookings and closures, across days', () => {
 		const from = utc('2027-01-04T07:00'); // Monday 08:00 in Berlin (UTC+1)
 		const busy = [{ start: utc('2027-01-04T09:00'), end: utc('2027-01-04T13:00') }];
-		const slots = proposeSlots(14 * 3600, {
+		const proposal = proposeSlots(14 * 3600, {
 			hours,
 			timeZone: 'Europe/Berlin',
 			busy,
-			from_ms: from
+			from_ms: from,
+			...CUTS
 		});
-		expect(slots).toEqual([
-			{ start: utc('2027-01-04T07:00'), end: utc('2027-01-04T09:00') },
-			{ start: utc('2027-01-04T13:00'), end: utc('2027-01-04T17:00') },
-			{ start: utc('2027-01-05T07:00'), end: utc('2027-01-05T15:00') }
-		]);
-		expect(slots.reduce((s, x) => s + x.end - x.start, 0)).toBe(14 * 3600_000);
+		expect(proposal).toEqual({
+			ok: true,
+			slots: [
+				{ start: utc('2027-01-04T07:00'), end: utc('2027-01-04T09:00') },
+				{ start: utc('2027-01-04T13:00'), end: utc('2027-01-04T17:00') },
+				{ start: utc('2027-01-05T07:00'), end: utc('2027-01-05T15:00') }
+			]
+		});
 	});
 
-	it('finds nothing when the horizon cannot hold the campaign', () => {
+	it('finds nothing when the horizon cannot hold the campaign, and says so', () => {
 		expect(
 			proposeSlots(1000 * 3600, {
 				hours,
 				timeZone: 'Europe/Berlin',
 				busy: [],
 				from_ms: utc('2027-01-04T07:00'),
-				horizon_days: 7
+				horizon_days: 7,
+				...CUTS
 			})
-		).toEqual([]);
+		).toEqual({
+			ok: false,
+			message:
+				'The 1000 h 00 min still to book does not fit the free opening hours of the next 7 days in slots of at least 1 h 00 min.'
+		});
+	});
+
+	it('never leaves a remainder shorter than the minimum: the slot before stops short instead', () => {
+		// 10 h 15 min on 10-hour days: filling Monday would leave a 15-minute sliver for Tuesday.
+		const proposal = proposeSlots(10 * 3600 + 15 * 60, {
+			hours,
+			timeZone: 'Europe/Berlin',
+			busy: [],
+			from_ms: utc('2027-01-04T07:00'),
+			...CUTS
+		});
+		expect(proposal).toEqual({
+			ok: true,
+			slots: [
+				{ start: utc('2027-01-04T07:00'), end: utc('2027-01-04T16:15') },
+				{ start: utc('2027-01-05T07:00'), end: utc('2027-01-05T08:00') }
+			]
+		});
+	});
+
+	it('waits for a gap that holds the whole rest when the gap before cannot keep the minimum', () => {
+		// Monday has one free hour; 1 h 30 min cannot be split into two slots of an hour or more.
+		const proposal = proposeSlots(90 * 60, {
+			hours,
+			timeZone: 'Europe/Berlin',
+			busy: [{ start: utc('2027-01-04T08:00'), end: utc('2027-01-04T17:00') }],
+			from_ms: utc('2027-01-04T07:00'),
+			...CUTS
+		});
+		expect(proposal).toEqual({
+			ok: true,
+			slots: [{ start: utc('2027-01-05T07:00'), end: utc('2027-01-05T08:30') }]
+		});
+	});
+
+	it('refuses a need shorter than the minimum, which no slot of its own can hold', () => {
+		const proposal = proposeSlots(20 * 60, {
+			hours,
+			timeZone: 'Europe/Berlin',
+			busy: [],
+			from_ms: utc('2027-01-04T07:00'),
+			...CUTS
+		});
+		expect(proposal).toMatchObject({ ok: false, message: expect.stringMatching(/does not fit/) });
+	});
+
+	it('rounds the time up to whole steps and starts and ends slots on the local quarter hours', () => {
+		// A booking ends at 09:07 local; 2 h 05 min is wanted. From a "now" of 08:03 local.
+		const proposal = proposeSlots(2 * 3600 + 5 * 60, {
+			hours,
+			timeZone: 'Europe/Berlin',
+			busy: [{ start: utc('2027-01-04T07:03'), end: utc('2027-01-04T08:07') }],
+			from_ms: utc('2027-01-04T07:03'),
+			...CUTS
+		});
+		expect(proposal).toEqual({
+			ok: true,
+			slots: [{ start: utc('2027-01-04T08:15'), end: utc('2027-01-04T10:30') }]
+		});
+		// The grid is the facility's wall clock: on whole hours in Kolkata (UTC+05:30, IANA tz
+		// database) a slot starts at half past the hour in UTC.
+		const kolkata = proposeSlots(3600, {
+			hours,
+			timeZone: 'Asia/Kolkata',
+			busy: [],
+			from_ms: utc('2027-01-04T03:31'), // 09:01 local
+			minimumSlot_s: 3600,
+			slotStep_s: 3600
+		});
+		expect(kolkata).toEqual({
+			ok: true,
+			slots: [{ start: utc('2027-01-04T04:30'), end: utc('2027-01-04T05:30') }]
+		});
+	});
+
+	it('keeps every proposed slot inside opening hours and free time, at least the minimum long', () => {
+		const busy = [
+			{ start: utc('2027-01-04T09:10'), end: utc('2027-01-04T09:50') },
+			{ start: utc('2027-01-05T12:05'), end: utc('2027-01-05T16:40') },
+			{ start: utc('2027-01-06T07:00'), end: utc('2027-01-06T07:40') }
+		];
+		const proposal = proposeSlots(23 * 3600 + 7 * 60, {
+			hours,
+			timeZone: 'Europe/Berlin',
+			busy,
+			from_ms: utc('2027-01-04T06:52'),
+			...CUTS
+		});
+		if (!proposal.ok) throw new Error(proposal.message);
+		for (const slot of proposal.slots) {
+			expect(withinOpeningHours(slot, hours, 'Europe/Berlin')).toBe(true);
+			expect(busy.some((b) => overlaps(slot, b))).toBe(false);
+			expect(slot.end - slot.start).toBeGreaterThanOrEqual(HOUR_MS);
+			expect(slot.start % (15 * 60_000)).toBe(0);
+			expect(slot.end % (15 * 60_000)).toBe(0);
+		}
+		// 23 h 07 min rounded up to the next quarter hour.
+		expect(proposal.slots.reduce((s, x) => s + x.end - x.start, 0)).toBe(
+			23 * HOUR_MS + 15 * 60_000
+		);
 	});
 
 	it('takes busy time out of the windows', () => {

@@ -1,4 +1,5 @@
 import { DateTime } from 'luxon';
+import { formatDuration } from '../campaign/display';
 import type { Interval } from './rules';
 
 export type OpeningHours = Partial<
@@ -58,9 +59,45 @@ export function freeTime(windows: Interval[], busy: Interval[]): Interval[] {
 	return free;
 }
 
+const DAY_MS = 86_400_000;
+
+/**
+ * The instant moved onto the `step_ms` grid of the facility's wall clock, counted from local
+ * midnight, so proposals start and end at round local times (08:00, 08:15…) on any day,
+ * daylight-saving changes included. `round` is Math.ceil for starts and Math.floor for ends.
+ */
+function onClockGrid(
+	instant: number,
+	step_ms: number,
+	timeZone: string,
+	round: (x: number) => number
+): number {
+	const local = DateTime.fromMillis(instant, { zone: timeZone });
+	const clock_ms =
+		((local.hour * 60 + local.minute) * 60 + local.second) * 1000 + local.millisecond;
+	const grid_ms = round(clock_ms / step_ms) * step_ms;
+	if (grid_ms === clock_ms) return instant;
+	const within_ms = grid_ms % DAY_MS;
+	return local
+		.startOf('day')
+		.plus({ days: Math.floor(grid_ms / DAY_MS) })
+		.set({
+			hour: Math.floor(within_ms / 3_600_000),
+			minute: Math.floor(within_ms / 60_000) % 60,
+			second: Math.floor(within_ms / 1000) % 60,
+			millisecond: 0
+		})
+		.toMillis();
+}
+
+export type SlotProposal = { ok: true; slots: Interval[] } | { ok: false; message: string };
+
 /**
  * Slots that cover `duration_s` of tunnel time in the first free opening time from `from_ms`,
- * split across days where one day's hours do not hold it all. Searches up to `horizon_days`.
+ * split across days where one day's hours do not hold it all; searches up to `horizon_days`.
+ * Every slot starts and ends on the facility's `slotStep_s` clock grid (the time needed is rounded
+ * up to whole steps) and none is shorter than `minimumSlot_s`, since a sliver of a slot does not
+ * pay for a set-up check. Where that cannot be met the proposal is refused with the reason.
  */
 export function proposeSlots(
 	duration_s: number,
@@ -70,24 +107,53 @@ export function proposeSlots(
 		busy: Interval[];
 		from_ms: number;
 		horizon_days?: number;
-		minimumSlot_s?: number;
+		minimumSlot_s: number;
+		slotStep_s: number;
 	}
-): Interval[] {
-	const horizon_ms = (x.horizon_days ?? 120) * 86_400_000;
-	const minimum_ms = (x.minimumSlot_s ?? 1800) * 1000;
-	const windows = openingWindows(x.hours, x.timeZone, x.from_ms, x.from_ms + horizon_ms).map(
-		(w) => ({ start: Math.max(w.start, x.from_ms), end: w.end })
-	);
-	let remaining_ms = Math.ceil(duration_s) * 1000;
+): SlotProposal {
+	const horizon_days = x.horizon_days ?? 120;
+	const step_ms = Math.round(x.slotStep_s * 1000);
+	const wholeSteps = (ms: number) => Math.ceil(ms / step_ms) * step_ms;
+	const need_ms = wholeSteps(duration_s * 1000);
+	const least_ms = Math.max(step_ms, wholeSteps(x.minimumSlot_s * 1000));
+	const shortest = formatDuration(least_ms / 1000);
+	if (need_ms < least_ms)
+		return {
+			ok: false,
+			message: `The ${formatDuration(duration_s)} still to book does not fit a slot of its own: the shortest slot is ${shortest}. Lengthen a booked slot instead.`
+		};
+	const windows = openingWindows(
+		x.hours,
+		x.timeZone,
+		x.from_ms,
+		x.from_ms + horizon_days * DAY_MS
+	).map((w) => ({ start: Math.max(w.start, x.from_ms), end: w.end }));
+	const gaps = freeTime(windows, x.busy)
+		.map((g) => ({
+			start: onClockGrid(g.start, step_ms, x.timeZone, Math.ceil),
+			end: onClockGrid(g.end, step_ms, x.timeZone, Math.floor)
+		}))
+		.filter((g) => g.end - g.start >= least_ms);
+	let remaining_ms = need_ms;
 	const slots: Interval[] = [];
-	for (const gap of freeTime(windows, x.busy)) {
-		if (remaining_ms <= 0) break;
-		const length = gap.end - gap.start;
-		// Scraps shorter than the minimum are not worth a set-up; the last piece may be short.
-		if (length < Math.min(minimum_ms, remaining_ms)) continue;
-		const take = Math.min(length, remaining_ms);
+	for (const gap of gaps) {
+		if (remaining_ms === 0) break;
+		const free_ms = gap.end - gap.start;
+		let take: number;
+		if (free_ms >= remaining_ms) take = remaining_ms;
+		else if (remaining_ms - free_ms >= least_ms) take = free_ms;
+		// Filling this gap would leave a sliver to book later: stop short so that exactly the
+		// minimum is left, or, where this gap cannot keep the minimum too, wait for a gap that
+		// holds all that is left.
+		else if (remaining_ms - least_ms >= least_ms) take = remaining_ms - least_ms;
+		else continue;
 		slots.push({ start: gap.start, end: gap.start + take });
 		remaining_ms -= take;
 	}
-	return remaining_ms > 0 ? [] : slots;
+	if (remaining_ms > 0)
+		return {
+			ok: false,
+			message: `The ${formatDuration(duration_s)} still to book does not fit the free opening hours of the next ${horizon_days} days in slots of at least ${shortest}.`
+		};
+	return { ok: true, slots };
 }

@@ -1,5 +1,8 @@
 import { DateTime } from 'luxon';
 
+/** How a calendar day is named on every page: "Mon 4 Jan". */
+const DAY_LABEL = 'ccc d LLL';
+
 /** The local Monday 00:00 of the week holding `day` (yyyy-mm-dd, or now), and the week's days. */
 export function weekOf(day: string | null, timeZone: string) {
 	const parsed = day ? DateTime.fromISO(day, { zone: timeZone }) : DateTime.now().setZone(timeZone);
@@ -8,7 +11,7 @@ export function weekOf(day: string | null, timeZone: string) {
 	return {
 		from: monday.toJSDate(),
 		to: monday.plus({ weeks: 1 }).toJSDate(),
-		days: days.map((d) => ({ iso: d.toISODate()!, label: d.toFormat('ccc d LLL') })),
+		days: days.map((d) => ({ iso: d.toISODate()!, label: d.toFormat(DAY_LABEL) })),
 		previous: monday.minus({ weeks: 1 }).toISODate()!,
 		next: monday.plus({ weeks: 1 }).toISODate()!
 	};
@@ -25,6 +28,7 @@ export function localParts(instant: Date | number, timeZone: string) {
 	const t = DateTime.fromMillis(+instant, { zone: timeZone });
 	return {
 		day: t.toISODate()!,
+		dayLabel: t.toFormat(DAY_LABEL),
 		minutes: t.hour * 60 + t.minute,
 		label: t.toFormat('HH:mm'),
 		input: t.toFormat("yyyy-LL-dd'T'HH:mm")

@@ -11,11 +11,11 @@ describe('section area', () => {
 });
 
 describe('blockage corrections, closed section', () => {
-	it('uses the continuity estimate without drag or volume', () => {
+	it('uses the catch-all estimate when asked', () => {
 		// ε = ¼·A/C, q_c/q_u = (1 + ε)² — Barlow, Rae & Pope, 3rd ed. (from memory).
-		const b = blockage({ frontalArea_m2: 0.12, section: closed });
+		const b = blockage({ method: 'catch-all', frontalArea_m2: 0.12, section: closed });
 		expect(b.ratio).toBeCloseTo(0.04, 12);
-		expect(b.method).toBe('continuity');
+		expect(b.method).toBe('catch-all');
 		expect(b.solidBlockage).toBeCloseTo(0.01, 12);
 		expect(b.dynamicPressureFactor).toBeCloseTo(1.0201, 12);
 		expect(b.notes).toEqual([]);
@@ -23,7 +23,13 @@ describe('blockage corrections, closed section', () => {
 
 	it('uses Maskell for a bluff body with a drag coefficient', () => {
 		// q_c/q_u = 1 + θ·C_D·A/C, θ ≈ 5/2 — Maskell, ARC R&M 3400 (1963) (from memory).
-		const b = blockage({ frontalArea_m2: 0.15, section: closed, dragCoefficient: 0.4 });
+		const b = blockage({
+			method: 'maskell',
+			frontalArea_m2: 0.15,
+			section: closed,
+			dragCoefficient: 0.4,
+			modelVolume_m3: 0.09
+		});
 		expect(b.method).toBe('maskell');
 		expect(b.dynamicPressureFactor).toBeCloseTo(1 + 2.5 * 0.4 * 0.05, 12);
 		expect((1 + b.wakeBlockage) ** 2).toBeCloseTo(b.dynamicPressureFactor, 12);
@@ -33,6 +39,7 @@ describe('blockage corrections, closed section', () => {
 		// ε_sb = K·τ·V/C^1.5, ε_wb = C_D·A/(4C), q_c = q_u(1 + ε_sb + ε_wb)² —
 		// Barlow, Rae & Pope, 3rd ed. (from memory / secondary sources).
 		const b = blockage({
+			method: 'thom-herriot',
 			frontalArea_m2: 0.15,
 			section: closed,
 			dragCoefficient: 0.4,
@@ -48,18 +55,50 @@ describe('blockage corrections, closed section', () => {
 		expect(b.dynamicPressureFactor).toBeCloseTo((1 + esb + ewb) ** 2, 12);
 	});
 
+	it('never infers the method from the inputs present', () => {
+		// The same model with a volume and a C_D: the method chosen decides, not the inputs.
+		const model = {
+			frontalArea_m2: 0.15,
+			section: closed,
+			dragCoefficient: 0.4,
+			modelVolume_m3: 0.09
+		};
+		expect(blockage({ ...model, method: 'maskell' }).method).toBe('maskell');
+		expect(blockage({ ...model, method: 'catch-all' }).method).toBe('catch-all');
+		expect(blockage({ ...model, method: 'none' }).dynamicPressureFactor).toBe(1);
+		expect(() => blockage({ method: 'maskell', frontalArea_m2: 0.15, section: closed })).toThrow(
+			/dragCoefficient/
+		);
+		expect(() =>
+			blockage({
+				method: 'thom-herriot',
+				frontalArea_m2: 0.15,
+				section: closed,
+				dragCoefficient: 0.4
+			})
+		).toThrow(/modelVolume_m3/);
+	});
+
 	it('flags blockage over 5 % as a caution and over 7.5 % as a limit', () => {
 		// Closed sections: about 5 % preferred, up to about 7.5 % with corrections (common
 		// practice, no source; domain primer §5).
-		expect(blockage({ frontalArea_m2: 0.18, section: closed }).notes.map((n) => n.level)).toEqual([
-			'caution'
-		]);
-		expect(blockage({ frontalArea_m2: 0.24, section: closed }).notes.map((n) => n.level)).toEqual([
-			'limit'
-		]);
 		expect(
-			blockage({ frontalArea_m2: 0.24, section: closed, limits: { caution: 0.08, limit: 0.1 } })
-				.notes
+			blockage({ method: 'catch-all', frontalArea_m2: 0.18, section: closed }).notes.map(
+				(n) => n.level
+			)
+		).toEqual(['caution']);
+		expect(
+			blockage({ method: 'catch-all', frontalArea_m2: 0.24, section: closed }).notes.map(
+				(n) => n.level
+			)
+		).toEqual(['limit']);
+		expect(
+			blockage({
+				method: 'catch-all',
+				frontalArea_m2: 0.24,
+				section: closed,
+				limits: { caution: 0.08, limit: 0.1 }
+			}).notes
 		).toEqual([]);
 	});
 });
@@ -67,6 +106,7 @@ describe('blockage corrections, closed section', () => {
 describe('open jets and slotted walls', () => {
 	it('reports the ratio but applies no closed-wall correction', () => {
 		const b = blockage({
+			method: 'maskell',
 			frontalArea_m2: 0.24,
 			section: { ...closed, kind: 'open' },
 			dragCoefficient: 0.4
@@ -87,7 +127,7 @@ describe('bad input', () => {
 		[{ frontalArea_m2: 0.1, section: closed, dragCoefficient: NaN }, /dragCoefficient/],
 		[{ frontalArea_m2: 0.1, section: closed, modelVolume_m3: -1 }, /modelVolume_m3/]
 	])('refuses %j', (input, message) => {
-		expect(() => blockage(input)).toThrow(CalcInputError);
-		expect(() => blockage(input)).toThrow(message);
+		expect(() => blockage({ method: 'catch-all', ...input })).toThrow(CalcInputError);
+		expect(() => blockage({ method: 'catch-all', ...input })).toThrow(message);
 	});
 });

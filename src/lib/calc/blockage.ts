@@ -1,6 +1,8 @@
 import { CalcInputError, requireInRange, requireNonNegative, requirePositive } from './errors';
 import { finding, type Finding } from './findings';
-import type { SectionKind } from './kinds';
+import type { BlockageMethod, SectionKind } from './kinds';
+
+export type { BlockageMethod };
 
 export type TestSection = {
 	kind: SectionKind;
@@ -31,6 +33,8 @@ export const DEFAULT_TUNNEL_SHAPE_FACTOR = 0.86;
 export const MASKELL_THETA_3D = 2.5;
 
 export type BlockageInput = {
+	/** How to correct q; chosen, never inferred from which inputs happen to be present. */
+	method: BlockageMethod;
 	frontalArea_m2: number;
 	section: TestSection;
 	dragCoefficient?: number;
@@ -41,11 +45,9 @@ export type BlockageInput = {
 	tunnelShapeFactor?: number;
 };
 
-export type BlockageMethod = 'thom-herriot' | 'maskell' | 'continuity' | 'none';
-
 export type Blockage = {
 	ratio: number;
-	/** ΔV/V from the model's volume (or from the continuity estimate). */
+	/** ΔV/V from the model's volume (or from the catch-all estimate). */
 	solidBlockage: number;
 	/** ΔV/V from the wake. */
 	wakeBlockage: number;
@@ -81,11 +83,12 @@ export function sectionArea(section: TestSection): number {
 const pct = (x: number) => `${(x * 100).toFixed(1)} %`;
 
 /**
- * Blockage ratio and the dynamic-pressure correction for a closed section:
- * - with the model's volume, Thom/Herriot solid blockage ε_sb = K·τ·V/C^1.5 plus wake blockage
- *   ε_wb = C_D·A/(4C) when C_D is known, q_c/q_u = (1 + ε_sb + ε_wb)²;
- * - with C_D only, Maskell's bluff-body form q_c/q_u = 1 + θ·C_D·A/C;
- * - with neither, the continuity estimate ε = ¼·A/C, q_c/q_u = (1 + ε)².
+ * Blockage ratio and the dynamic-pressure correction for a closed section, by the chosen method:
+ * - `thom-herriot`: solid blockage ε_sb = K·τ·V/C^1.5 from the model's volume plus wake blockage
+ *   ε_wb = C_D·A/(4C) when C_D (frontal-area based) is known, q_c/q_u = (1 + ε_sb + ε_wb)²;
+ * - `maskell`: the bluff-body form q_c/q_u = 1 + θ·C_D·A/C;
+ * - `catch-all`: Pope's estimate ε = ¼·A/C, q_c/q_u = (1 + ε)²;
+ * - `none`: q as measured.
  * (Barlow, Rae & Pope, Low-Speed Wind Tunnel Testing, 3rd ed., and Maskell, ARC R&M 3400.)
  * Open jets and slotted walls need their own corrections (e.g. Mercker & Wiedemann,
  * SAE 960671); none is applied to them here.
@@ -154,7 +157,24 @@ export function blockage(x: BlockageInput): Blockage {
 		};
 	}
 
-	if (volume !== undefined) {
+	if (x.method === 'none') {
+		return {
+			ratio,
+			solidBlockage: 0,
+			wakeBlockage: 0,
+			dynamicPressureFactor: 1,
+			method: 'none',
+			sectionArea_m2: C,
+			notes
+		};
+	}
+	if (x.method === 'thom-herriot') {
+		if (volume === undefined)
+			throw new CalcInputError(
+				'modelVolume_m3',
+				'none',
+				'the model volume, which Thom/Herriot needs'
+			);
 		const K = requirePositive('bodyShapeFactor', x.bodyShapeFactor ?? DEFAULT_BODY_SHAPE_FACTOR);
 		const tau = requirePositive(
 			'tunnelShapeFactor',
@@ -181,7 +201,13 @@ export function blockage(x: BlockageInput): Blockage {
 			notes
 		};
 	}
-	if (cd !== undefined) {
+	if (x.method === 'maskell') {
+		if (cd === undefined)
+			throw new CalcInputError(
+				'dragCoefficient',
+				'none',
+				"the drag coefficient, which Maskell's correction needs"
+			);
 		const dynamicPressureFactor = 1 + MASKELL_THETA_3D * cd * ratio;
 		// Maskell's factor expressed as the equivalent velocity increment, all from the wake.
 		const wakeBlockage = Math.sqrt(dynamicPressureFactor) - 1;
@@ -201,7 +227,7 @@ export function blockage(x: BlockageInput): Blockage {
 		solidBlockage,
 		wakeBlockage: 0,
 		dynamicPressureFactor: (1 + solidBlockage) ** 2,
-		method: 'continuity',
+		method: 'catch-all',
 		sectionArea_m2: C,
 		notes
 	};

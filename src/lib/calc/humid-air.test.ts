@@ -4,8 +4,11 @@ import {
 	airState,
 	CalcInputError,
 	convert,
+	humidAirViscosity,
 	isaAtmosphere,
-	saturationVapourPressure
+	saturationVapourPressure,
+	sutherlandViscosity,
+	waterVapourViscosity
 } from './index';
 
 const rel = (actual: number, expected: number) => Math.abs(actual / expected - 1);
@@ -66,6 +69,45 @@ describe('saturation vapour pressure', () => {
 		expect(rel(saturationVapourPressure(t + 273.15), psychrolib.GetSatVapPres(t))).toBeLessThan(
 			1e-3
 		);
+	});
+});
+
+describe('saturation over ice below 0 °C', () => {
+	it.each([-30, -10, -1])('%d °C agrees with psychrolib', (t) => {
+		// ASHRAE Handbook—Fundamentals (2017) ch. 1 eq. 5 (Hyland & Wexler 1983, over ice), as
+		// psychrolib 1.1.1 implements it independently.
+		expect(rel(saturationVapourPressure(t + 273.15), psychrolib.GetSatVapPres(t))).toBeLessThan(
+			1e-9
+		);
+	});
+
+	it('is continuous enough at the triple point', () => {
+		// Over ice and over water meet at 611.657 Pa at 0.01 °C (IAPWS, from memory).
+		expect(rel(saturationVapourPressure(273.149), 611.2)).toBeLessThan(2e-3);
+		expect(rel(saturationVapourPressure(273.15), 611.2)).toBeLessThan(2e-3);
+	});
+});
+
+describe('humid-air viscosity', () => {
+	it('is dry-air Sutherland when there is no vapour', () => {
+		// Sutherland's law for dry air (as ISO 2533:1975 defines viscosity) is the Wilke rule's limit at x_v = 0.
+		const dry = airState({ temperature_K: 303.15, pressure_Pa: 101325, relativeHumidity: 0 });
+		expect(dry.dynamicViscosity_Pas).toBe(sutherlandViscosity(303.15));
+		expect(humidAirViscosity(303.15, 0, 0.02896546)).toBe(sutherlandViscosity(303.15));
+	});
+
+	it('takes water vapour at the IAPWS dilute-gas viscosity', () => {
+		// Steam near 100 °C at low pressure: about 12.3 µPa·s (IAPWS R12-08; from memory).
+		expect(rel(waterVapourViscosity(373.15), 12.3e-6)).toBeLessThan(0.01);
+	});
+
+	it('makes warm saturated air a few per cent less viscous than dry air', () => {
+		// Tsilingiris, Energy Conversion and Management 49 (2008) 1098, Fig. 4: at 40 °C the
+		// viscosity of saturated air lies about 3–4 % below that of dry air (from memory).
+		const humid = airState({ temperature_K: 313.15, pressure_Pa: 101325, relativeHumidity: 0.95 });
+		const drop = 1 - humid.dynamicViscosity_Pas / sutherlandViscosity(313.15);
+		expect(drop).toBeGreaterThan(0.025);
+		expect(drop).toBeLessThan(0.045);
 	});
 });
 

@@ -5,7 +5,14 @@
 export type { AirState } from './air-state';
 export { CalcInputError } from './errors';
 export type { Finding } from './findings';
-export { SECTION_KINDS, MODEL_KINDS, DEFAULT_RE_INDEPENDENCE } from './kinds';
+export {
+	SECTION_KINDS,
+	MODEL_KINDS,
+	DEFAULT_RE_INDEPENDENCE,
+	BLOCKAGE_METHODS,
+	BLOCKAGE_METHOD_LABELS,
+	DEFAULT_BLOCKAGE_METHOD
+} from './kinds';
 export type { SectionKind, ModelKind, ReferenceBasis } from './kinds';
 export {
 	ISA,
@@ -17,7 +24,13 @@ export {
 	dryAirState,
 	geopotentialAltitude
 } from './atmosphere';
-export { airState, saturationVapourPressure, DEFAULT_CO2_MOLE_FRACTION } from './humid-air';
+export {
+	airState,
+	saturationVapourPressure,
+	waterVapourViscosity,
+	humidAirViscosity,
+	DEFAULT_CO2_MOLE_FRACTION
+} from './humid-air';
 export {
 	reynoldsNumber,
 	machNumber,
@@ -80,5 +93,24 @@ export type {
 export { estimateOccupancy } from './occupancy';
 export type { FacilityTiming, Occupancy } from './occupancy';
 export { propagateUncertainty } from './uncertainty';
-export type { UncertainInput, UncertaintyBudget } from './uncertainty';
+export type {
+	UncertainInput,
+	UncertaintyBudget,
+	InputCorrelation,
+	PropagationOptions
+} from './uncertainty';
+export { pressureCoefficient, blockageCorrectedCp } from './coefficients';
+export { meanCpUncertainty, cpDifferenceUncertainty } from './coefficient-uncertainty';
+export type {
+	MeanCpUncertaintyInput,
+	CpDifferenceUncertaintyInput
+} from './coefficient-uncertainty';
+export { gridAverages, matchedDifference } from './grid';
+export type { Grid, GridAverages, MatchedDifference } from './grid';
+export { linearFit, meanWithTypeA } from './statistics';
+export type { LinearFit, MeanWithTypeA } from './statistics';
+export { wakeSurveyDrag } from './wake-drag';
+export type { WakeSurvey, WakeSurveyDrag } from './wake-drag';
+export { reynoldsSweep } from './reynolds-sweep';
+export type { ReynoldsPoint, ReynoldsSweep } from './reynolds-sweep';
 export { occupancyCost, toSignificant } from './money';

@@ -175,4 +175,20 @@ describe('envelope findings', () => {
 		]);
 		expect(envelopeFindings(plan({ speeds_mps: [30], yawAngles_deg: [0] }), envelope)).toEqual([]);
 	});
+
+	it('holds the q limit against the q the tunnel is set to, not the blockage-corrected q', () => {
+		// q = ½ρV² at sea level, 40 m/s: 980 Pa as set (ISO 2533:1975 ρ = 1.225 kg/m³). With a
+		// correction factor of 1.2 the model sees 1176 Pa, but the fan sets 980 Pa.
+		const limit = {
+			minSpeed_mps: 5,
+			maxSpeed_mps: 50,
+			maxDynamicPressure_Pa: 1000,
+			yawMin_deg: -3,
+			yawMax_deg: 3
+		};
+		const corrected = plan({ speeds_mps: [40], yawAngles_deg: [0], dynamicPressureFactor: 1.2 });
+		expect(envelopeFindings(corrected, limit).map((f) => f.code)).not.toContain('q-above-envelope');
+		const over = { ...limit, maxDynamicPressure_Pa: 950 };
+		expect(envelopeFindings(corrected, over).map((f) => f.code)).toContain('q-above-envelope');
+	});
 });

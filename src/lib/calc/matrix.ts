@@ -258,7 +258,8 @@ export function envelopeFindings(
 				finding(
 					'limit',
 					'speed-above-envelope',
-					`${v} m/s is above the facility's maximum of ${envelope.maxSpeed_mps} m/s.`
+					`${v} m/s is above the facility's maximum of ${envelope.maxSpeed_mps} m/s.`,
+					c.speed_mps
 				)
 			);
 		} else if (c.speed_mps < envelope.minSpeed_mps) {
@@ -266,16 +267,20 @@ export function envelopeFindings(
 				finding(
 					'limit',
 					'speed-below-envelope',
-					`${v} m/s is below the facility's minimum of ${envelope.minSpeed_mps} m/s.`
+					`${v} m/s is below the facility's minimum of ${envelope.minSpeed_mps} m/s.`,
+					c.speed_mps
 				)
 			);
 		}
-		if (c.correctedDynamicPressure_Pa > envelope.maxDynamicPressure_Pa) {
+		// The facility's limit is on the q the tunnel is set to; the blockage-corrected q is what
+		// the model feels, not what the fan and the structure see.
+		if (c.dynamicPressure_Pa > envelope.maxDynamicPressure_Pa) {
 			notes.push(
 				finding(
 					'limit',
 					'q-above-envelope',
-					`At ${v} m/s, q = ${c.correctedDynamicPressure_Pa.toFixed(0)} Pa is above the facility's maximum of ${envelope.maxDynamicPressure_Pa} Pa.`
+					`At ${v} m/s, q = ${c.dynamicPressure_Pa.toFixed(0)} Pa (as set, before blockage correction) is above the facility's maximum of ${envelope.maxDynamicPressure_Pa} Pa.`,
+					c.speed_mps
 				)
 			);
 		}
@@ -284,7 +289,8 @@ export function envelopeFindings(
 				finding(
 					'limit',
 					'mach-compressible',
-					`At ${v} m/s the Mach number is ${c.mach.toFixed(2)}, above ${INCOMPRESSIBLE_MACH_LIMIT}.`
+					`At ${v} m/s the Mach number is ${c.mach.toFixed(2)}, above ${INCOMPRESSIBLE_MACH_LIMIT}.`,
+					c.speed_mps
 				)
 			);
 		}

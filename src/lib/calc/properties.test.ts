@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import {
 	airState,
 	blockage,
+	BLOCKAGE_METHODS,
 	CalcInputError,
 	convert,
 	dynamicPressure,
@@ -53,7 +54,8 @@ describe('properties', () => {
 			['inH2O', 'mmHg'],
 			['psi', 'mmH2O'],
 			['km/h', 'm/s'],
-			['knot', 'm/h'],
+			['knot', 'mph'],
+			['kn', 'm/h'],
 			['C', 'K'],
 			['ft', 'mm']
 		];
@@ -74,8 +76,12 @@ describe('properties', () => {
 				fc.double({ min: 0.001, max: 0.3, noNaN: true }),
 				fc.option(fc.double({ min: 0, max: 2, noNaN: true }), { nil: undefined }),
 				fc.option(fc.double({ min: 1e-4, max: 0.5, noNaN: true }), { nil: undefined }),
-				(ratio, dragCoefficient, modelVolume_m3) => {
+				fc.constantFrom(...BLOCKAGE_METHODS),
+				(ratio, dragCoefficient, modelVolume_m3, method) => {
+					if (method === 'maskell' && dragCoefficient === undefined) return;
+					if (method === 'thom-herriot' && modelVolume_m3 === undefined) return;
 					const b = blockage({
+						method,
 						frontalArea_m2: ratio * 6,
 						section: { kind: 'closed', width_m: 3, height_m: 2 },
 						dragCoefficient,
@@ -159,7 +165,11 @@ describe('no NaN or Infinity escapes', () => {
 				finiteOrRefused(() => sutherlandViscosity(a));
 				finiteOrRefused(() => convert(a, 'mmH2O', 'Pa'));
 				finiteOrRefused(() =>
-					blockage({ frontalArea_m2: a, section: { kind: 'closed', width_m: b, height_m: c } })
+					blockage({
+						method: 'catch-all',
+						frontalArea_m2: a,
+						section: { kind: 'closed', width_m: b, height_m: c }
+					})
 				);
 				finiteOrRefused(() =>
 					similarity({

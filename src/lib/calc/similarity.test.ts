@@ -80,7 +80,7 @@ describe('similarity', () => {
 		);
 		expect(s.modelRe * (s.speedForEqualRe_mps / 50)).toBeCloseTo(s.fullScaleRe, 0);
 		expect(s.machAtEqualRe).toBeGreaterThan(0.3);
-		expect(s.notes.map((n) => [n.level, n.code])).toEqual([['caution', 're-gap']]);
+		expect(s.notes.map((n) => [n.level, n.code])).toEqual([['limit', 'equal-re-unreachable']]);
 	});
 
 	it('flags a model speed above Mach 0.3 and Re below a stated threshold', () => {
@@ -95,10 +95,28 @@ describe('similarity', () => {
 		});
 		expect(s.modelMach).toBeGreaterThan(0.3);
 		expect(s.notes.map((n) => n.code).sort()).toEqual([
+			'equal-re-unreachable',
 			'mach-compressible',
-			're-below-independence',
-			're-gap'
+			're-below-independence'
 		]);
+	});
+
+	it('reports the equal-Re speed of a 1:500 building model instead of refusing it', () => {
+		// A 1:500 model of a 50 m building at 25 m/s: equal Re needs 25·500·(ν_m/ν_f) ≈ 12 500 m/s
+		// (V_m = V_f·(L_f/L_m)·(ν_m/ν_f), Barlow, Rae & Pope, ch. 1), far beyond any low-speed tunnel.
+		const s = similarity({
+			scale: 1 / 500,
+			fullScaleLength_m: 50,
+			fullScaleSpeed_mps: 25,
+			modelSpeed_mps: 12,
+			fullScaleAir: sea,
+			tunnelAir: sea
+		});
+		expect(s.speedForEqualRe_mps).toBeCloseTo(12_500, 6);
+		expect(s.machAtEqualRe).toBeCloseTo(12_500 / sea.speedOfSound_mps, 9);
+		const unreachable = s.notes.find((n) => n.code === 'equal-re-unreachable')!;
+		expect(unreachable.level).toBe('limit');
+		expect(unreachable.message).toMatch(/12500 m\/s.*Re-independence/);
 	});
 
 	it('finds equal Re at full scale in the same air', () => {

@@ -2,6 +2,9 @@ import type { AirState } from './air-state';
 import { requireInRange, requirePositive } from './errors';
 import { finding, type Finding } from './findings';
 import { INCOMPRESSIBLE_MACH_LIMIT, machNumber, reynoldsNumber } from './flow';
+import { DEFAULT_RE_INDEPENDENCE } from './kinds';
+
+const BUILDING = DEFAULT_RE_INDEPENDENCE.building!;
 
 export type SimilarityInput = {
 	/** Model length over full-scale length, e.g. 1/5. */
@@ -26,6 +29,8 @@ export type Similarity = {
 };
 
 const sig = (x: number, digits = 3) => x.toPrecision(digits);
+/** Three significant figures without an exponent: 12500, not 1.25e+4. */
+const speed = (v: number) => String(+v.toPrecision(3));
 
 /**
  * Dynamic similarity of a scale model against full scale. The speed for equal Re is
@@ -45,29 +50,37 @@ export function similarity(x: SimilarityInput): Similarity {
 		x.fullScaleSpeed_mps *
 		(1 / scale) *
 		(x.tunnelAir.kinematicViscosity_m2s / x.fullScaleAir.kinematicViscosity_m2s);
-	const machAtEqualRe = machNumber(speedForEqualRe_mps, x.tunnelAir);
+	// A derived figure, never refused however large: a 1:500 building model needs thousands of
+	// m/s for equal Re, and saying so is the point.
+	const machAtEqualRe =
+		speedForEqualRe_mps /
+		requirePositive('tunnelAir.speedOfSound_mps', x.tunnelAir.speedOfSound_mps);
 	const modelMach = machNumber(x.modelSpeed_mps, x.tunnelAir);
 	const reRatio = modelRe / fullScaleRe;
 
 	const notes: Finding[] = [];
+	const at = x.modelSpeed_mps;
 	if (modelMach > INCOMPRESSIBLE_MACH_LIMIT) {
 		notes.push(
 			finding(
 				'limit',
 				'mach-compressible',
-				`Model Mach number ${sig(modelMach, 2)} is above ${INCOMPRESSIBLE_MACH_LIMIT}: compressibility is no longer negligible.`
+				`Model Mach number ${sig(modelMach, 2)} is above ${INCOMPRESSIBLE_MACH_LIMIT}: compressibility is no longer negligible.`,
+				at
 			)
 		);
 	}
 	if (reRatio < 0.999) {
+		const unreachable = machAtEqualRe > INCOMPRESSIBLE_MACH_LIMIT;
 		notes.push(
 			finding(
-				machAtEqualRe > INCOMPRESSIBLE_MACH_LIMIT ? 'caution' : 'info',
-				're-gap',
-				`Model Re is ${sig(reRatio * 100, 2)} % of full scale. Equal Re needs ${sig(speedForEqualRe_mps)} m/s` +
-					(machAtEqualRe > INCOMPRESSIBLE_MACH_LIMIT
-						? ` (Mach ${sig(machAtEqualRe, 2)}), beyond incompressible flow; argue Re-independence from a speed sweep instead.`
-						: '.')
+				unreachable ? 'limit' : 'info',
+				unreachable ? 'equal-re-unreachable' : 're-gap',
+				`Model Re is ${sig(reRatio * 100, 2)} % of full scale. Equal Re needs ${speed(speedForEqualRe_mps)} m/s` +
+					(unreachable
+						? ` (Mach ${sig(machAtEqualRe, 2)}): out of reach in a low-speed tunnel. Argue Re-independence from a speed sweep instead (sharp-edged bodies such as buildings are commonly taken as Re-independent above a height-based Re of about ${BUILDING.threshold.toExponential(1).replace('e+', 'e')}, ${BUILDING.source}).`
+						: '.'),
+				at
 			)
 		);
 	}
@@ -78,7 +91,8 @@ export function similarity(x: SimilarityInput): Similarity {
 				finding(
 					'caution',
 					're-below-independence',
-					`Model Re ${sig(modelRe)} is below the stated Re-independence threshold ${sig(threshold)}.`
+					`Model Re ${sig(modelRe)} is below the stated Re-independence threshold ${sig(threshold)}.`,
+					at
 				)
 			);
 		}

@@ -5,6 +5,14 @@ import { CalcInputError, convert } from './index';
 const rel = (actual: number, expected: number) => Math.abs(actual / expected - 1);
 
 describe('conversion factors', () => {
+	it('reads m/h as metre per hour, never as mile per hour', () => {
+		// NIST SP 811 (2008) B.9: metre per hour is 1/3600 m/s; mile per hour 0.447 04 m/s exactly.
+		expect(convert(3600, 'm/h', 'm/s')).toBeCloseTo(1, 12);
+		expect(convert(1, 'mph', 'm/h')).toBeCloseTo(0.44704 * 3600, 9);
+		// NIST SP 811 (2008) B.9: knot = 1852 m/h exactly.
+		expect(convert(1, 'kn', 'm/h')).toBeCloseTo(1852, 9);
+	});
+
 	// NIST SP 811 (2008), Appendix B.8 and B.9.
 	it.each([
 		['mmH2O', 'Pa', 9.80665],
@@ -13,7 +21,10 @@ describe('conversion factors', () => {
 		['torr', 'Pa', 101325 / 760],
 		['psi', 'Pa', 6894.757],
 		['knot', 'm/s', 0.5144444],
-		['m/h', 'm/s', 0.44704],
+		['kn', 'm/s', 0.5144444],
+		['kt', 'm/s', 0.5144444],
+		['mph', 'm/s', 0.44704],
+		['mph', 'km/h', 1.609344],
 		['km/h', 'm/s', 1 / 3.6]
 	])('1 %s = %d %s', (from, to, factor) => {
 		expect(rel(convert(1, from, to), factor)).toBeLessThan(1e-6);

@@ -2,16 +2,25 @@ import convertUnits from 'convert-units';
 import { CalcInputError, requireFinite } from './errors';
 
 /**
- * Pressure units convert-units lacks, in pascals (NIST SP 811, Appendix B.8): conventional
- * millimetre and inch of water (ρ = 1000 kg/m³, g = 9.80665 m/s²), conventional mmHg, and the
- * millibar (exactly 100 Pa).
+ * Units convert-units lacks or names otherwise, as a factor to the measure's base unit, NIST SP
+ * 811 (2008) Appendix B.8 and B.9: conventional millimetre and inch of water (ρ = 1000 kg/m³,
+ * g = 9.80665 m/s²), conventional mmHg, the millibar (100 Pa exactly); mile per hour
+ * (0.44704 m/s exactly), knot (1852/3600 m/s exactly) and metre per hour. convert-units spells
+ * mile per hour `m/h`, which a caller meaning metre per hour would read 1609 times too large,
+ * so `m/h` is metre per hour here and `mph` the mile per hour.
  */
-const EXTRA_PRESSURE_UNITS_PA: Record<string, number> = {
-	mmH2O: 9.80665,
-	inH2O: 249.0889,
-	mmHg: 133.3224,
-	mbar: 100
+const EXTRA_UNITS: Record<string, { measure: 'pressure' | 'speed'; factor: number }> = {
+	mmH2O: { measure: 'pressure', factor: 9.80665 },
+	inH2O: { measure: 'pressure', factor: 249.0889 },
+	mmHg: { measure: 'pressure', factor: 133.3224 },
+	mbar: { measure: 'pressure', factor: 100 },
+	mph: { measure: 'speed', factor: 0.44704 },
+	kn: { measure: 'speed', factor: 1852 / 3600 },
+	kt: { measure: 'speed', factor: 1852 / 3600 },
+	knot: { measure: 'speed', factor: 1852 / 3600 },
+	'm/h': { measure: 'speed', factor: 1 / 3600 }
 };
+const BASE_UNIT = { pressure: 'Pa', speed: 'm/s' } as const;
 
 /** The pressure units manometer banks, scanners and barometers report in. */
 export const READING_PRESSURE_UNITS = [
@@ -31,7 +40,8 @@ export const COLUMN_LENGTH_UNITS = ['mm', 'cm', 'm', 'in'] as const;
 const catalogue = convertUnits();
 
 function measureOf(unit: string, parameter: 'from' | 'to'): string {
-	if (unit in EXTRA_PRESSURE_UNITS_PA) return 'pressure';
+	const extra = EXTRA_UNITS[unit];
+	if (extra) return extra.measure;
 	try {
 		return catalogue.describe(unit as never).measure;
 	} catch {
@@ -47,12 +57,13 @@ export function knownUnits(measure?: string): string[] {
 	const base = (
 		measure ? catalogue.possibilities(measure as never) : catalogue.possibilities()
 	) as string[];
-	return !measure || measure === 'pressure'
-		? [...base, ...Object.keys(EXTRA_PRESSURE_UNITS_PA)]
-		: base;
+	const extras = Object.entries(EXTRA_UNITS)
+		.filter(([, e]) => !measure || e.measure === measure)
+		.map(([unit]) => unit);
+	return [...base.filter((u) => !(u in EXTRA_UNITS)), ...extras];
 }
 
-/** Converts between convert-units' symbols plus mmH2O, inH2O and mmHg. */
+/** Converts between convert-units' symbols and the units above (NIST SP 811 factors). */
 export function convertUnit(value: number, from: string, to: string): number {
 	const result = convertFinite(value, from, to);
 	if (!Number.isFinite(result)) {
@@ -69,28 +80,26 @@ function convertFinite(value: number, from: string, to: string): number {
 		throw new CalcInputError('to', to, `a unit of ${fromMeasure}, like ${from}`);
 	}
 	if (from === to) return value;
-	if (
-		fromMeasure === 'pressure' &&
-		(from in EXTRA_PRESSURE_UNITS_PA || to in EXTRA_PRESSURE_UNITS_PA)
-	) {
-		const pascals =
-			from in EXTRA_PRESSURE_UNITS_PA
-				? value * EXTRA_PRESSURE_UNITS_PA[from]!
-				: convertUnits(value)
-						.from(from as never)
-						.to('Pa');
-		return to in EXTRA_PRESSURE_UNITS_PA
-			? pascals / EXTRA_PRESSURE_UNITS_PA[to]!
-			: convertUnits(pascals)
-					.from('Pa')
-					.to(to as never);
-	}
-	return convertUnits(value)
-		.from(from as never)
-		.to(to as never);
+	const fromExtra = EXTRA_UNITS[from];
+	const toExtra = EXTRA_UNITS[to];
+	if (!fromExtra && !toExtra)
+		return convertUnits(value)
+			.from(from as never)
+			.to(to as never);
+	const base = BASE_UNIT[fromMeasure as keyof typeof BASE_UNIT];
+	const inBase = fromExtra
+		? value * fromExtra.factor
+		: convertUnits(value)
+				.from(from as never)
+				.to(base as never);
+	return toExtra
+		? inBase / toExtra.factor
+		: convertUnits(inBase)
+				.from(base as never)
+				.to(to as never);
 }
 
 /** Pa → conventional mm of water, the manometer reading. */
 export function pascalsToMmH2O(pressure_Pa: number): number {
-	return pressure_Pa / EXTRA_PRESSURE_UNITS_PA.mmH2O!;
+	return pressure_Pa / EXTRA_UNITS.mmH2O!.factor;
 }

@@ -66,7 +66,7 @@ export class LiveFigures {
 						))
 					}))
 				),
-				post<Blockage>('/api/v1/calc/blockage', blockageRequest(model, facility), signal),
+				post<Blockage>('/api/v1/calc/blockage', blockageRequest(def, model, facility), signal),
 				post<MatrixEvaluation>(
 					'/api/v1/calc/matrix',
 					matrixSummaryRequest(def, model, facility),

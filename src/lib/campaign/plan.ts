@@ -10,11 +10,17 @@ import {
 	type MatrixPlan,
 	type ProbeGrid
 } from '../calc';
-import type { SectionKind } from '../calc/kinds';
+import {
+	DEFAULT_BLOCKAGE_METHOD,
+	type BlockageMethod,
+	type ModelKind,
+	type SectionKind
+} from '../calc/kinds';
 import type { CampaignDefinition, ProbeGridSpec } from '../schemas/campaign';
 
 /** What a campaign's figures need of its model (full-scale values as stored). */
 export type PlanModel = {
+	kind: ModelKind;
 	scaleDenominator: number;
 	fullScaleLength_m: number;
 	fullScaleWidth_m: number;
@@ -47,6 +53,20 @@ export type CampaignPlan = {
 	modelWidth_m: number;
 	modelHeight_m: number;
 };
+
+/**
+ * The blockage method a campaign uses until its owner chooses one: the default for the model's
+ * kind, or the general estimate when the model lacks what that method needs (C_D for Maskell,
+ * the volume for Thom/Herriot).
+ */
+export function defaultBlockageMethod(
+	model: Pick<PlanModel, 'kind' | 'dragCoefficient' | 'modelVolume_m3'>
+): BlockageMethod {
+	const method = DEFAULT_BLOCKAGE_METHOD[model.kind];
+	if (method === 'maskell' && model.dragCoefficient == null) return 'catch-all';
+	if (method === 'thom-herriot' && model.modelVolume_m3 == null) return 'catch-all';
+	return method;
+}
 
 export function probeGrid(spec: ProbeGridSpec): ProbeGrid {
 	return spec.mode === 'uniform'
@@ -93,6 +113,7 @@ export function campaignPlan(
 	const modelLength_m = model.fullScaleLength_m * scale;
 	const tunnelAir = tunnelAirOf(def.air);
 	const correction = blockage({
+		method: def.blockageMethod ?? defaultBlockageMethod(model),
 		frontalArea_m2: model.fullScaleFrontalArea_m2 * scale * scale,
 		section: {
 			kind: facility.sectionKind,

@@ -1,5 +1,5 @@
 import type { CampaignDefinition } from '../schemas/campaign';
-import { downstreamMetres, type PlanFacility, type PlanModel } from './plan';
+import { defaultBlockageMethod, downstreamMetres, type PlanFacility, type PlanModel } from './plan';
 
 /**
  * Bodies for the calculation API that the campaign editor posts while the user types. The
@@ -20,9 +20,10 @@ export function tunnelAirRequest(air: CampaignDefinition['air']) {
 			};
 }
 
-export function blockageRequest(model: PlanModel, facility: PlanFacility) {
+export function blockageRequest(def: CampaignDefinition, model: PlanModel, facility: PlanFacility) {
 	const scale = 1 / model.scaleDenominator;
 	return {
+		method: def.blockageMethod ?? defaultBlockageMethod(model),
 		frontalArea: model.fullScaleFrontalArea_m2 * scale * scale,
 		section: {
 			kind: facility.sectionKind,
@@ -83,7 +84,7 @@ export function matrixSummaryRequest(
 		repeats: def.repeats,
 		modelReferenceLength: model.referenceLength_m / model.scaleDenominator,
 		tunnelAir: tunnelAirRequest(def.air),
-		blockage: blockageRequest(model, facility),
+		blockage: blockageRequest(def, model, facility),
 		envelope: {
 			minSpeed: facility.minSpeed_mps,
 			maxSpeed: facility.maxSpeed_mps,

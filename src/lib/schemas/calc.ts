@@ -6,6 +6,7 @@ import {
 	isaAtmosphere,
 	knownUnits,
 	SECTION_KINDS,
+	BLOCKAGE_METHODS,
 	uniformGrid
 } from '../calc';
 
@@ -14,13 +15,56 @@ import {
  * `{ "value": 36, "unit": "km/h" }`; each transform hands the calculation core SI values.
  */
 
+/** Unit suffixes of the core's parameter names; the request names the same fields without them. */
+const UNIT_SUFFIX = /_(m|mps|Pa|K|s|m2|m3|kgm3|Pas|m2s)(?=$|\.|\[)/g;
+
+/**
+ * How a request names the core's parameter: `section.width_m` is `section.width`,
+ * `speeds_mps[1]` is `speeds[1]`. Yaw fields keep their `_deg`, as the request spells them.
+ */
+export function requestFieldOf(parameter: string): string {
+	return parameter.replace(UNIT_SUFFIX, '');
+}
+
+/**
+ * The core's refusal in the request's words. A parameter the request does not have is a figure
+ * derived from it: the message says so, in words, instead of naming the core's internals.
+ */
+export function requestWording(
+	error: CalcInputError,
+	requestKeys: readonly string[]
+): { field: string | null; message: string } {
+	const field = requestFieldOf(error.parameter);
+	const top = field.split(/[.[]/)[0]!;
+	if (requestKeys.includes(top))
+		return {
+			field,
+			message: `${field} = ${String(error.value)} is outside the valid range: ${error.validRange}.`
+		};
+	const words = field
+		.split(/[.[\]]/)
+		.filter((part) => part && !/^\d+$/.test(part))
+		.at(-1)!
+		.replace(/([a-z])([A-Z])/g, '$1 $2')
+		.toLowerCase();
+	return {
+		field: null,
+		message: `A figure derived from the request, the ${words}, comes to ${String(error.value)}, outside the valid range: ${error.validRange}.`
+	};
+}
+
 /** Runs a core call inside a zod transform, turning its input errors into field issues. */
-function viaCore<T>(ctx: z.RefinementCtx, run: () => T): T {
+function viaCore<T>(ctx: z.RefinementCtx, keys: readonly string[], run: () => T): T {
 	try {
 		return run();
 	} catch (error) {
 		if (!(error instanceof CalcInputError)) throw error;
-		ctx.addIssue({ code: 'custom', message: error.message });
+		const wording = requestWording(error, keys);
+		ctx.addIssue({
+			code: 'custom',
+			message: wording.message,
+			...(wording.field ? { path: wording.field.split('.') } : {})
+		});
 		return z.NEVER;
 	}
 }
@@ -37,7 +81,7 @@ export function quantity(measure: string, siUnit: string) {
 			})
 		])
 		.transform((q, ctx) =>
-			typeof q === 'number' ? q : viaCore(ctx, () => convert(q.value, q.unit, siUnit))
+			typeof q === 'number' ? q : viaCore(ctx, ['value'], () => convert(q.value, q.unit, siUnit))
 		);
 }
 
@@ -48,8 +92,14 @@ const volume = quantity('volume', 'm3');
 const duration = quantity('time', 's');
 const pressure = quantity('pressure', 'Pa');
 
-/** A temperature: convert-units handles the offset between °C, °F and K. */
-const temperature = quantity('temperature', 'K');
+/**
+ * A temperature: convert-units handles the offset between °C, °F and K. A bare number is kelvin
+ * like every bare quantity; one below 150 is surely meant as °C or °F, so it is refused with
+ * the form that says so.
+ */
+const temperature = quantity('temperature', 'K').refine((t) => t >= 150, {
+	error: 'A bare temperature is in kelvin; send { "value": 20, "unit": "C" } for degrees Celsius.'
+});
 
 /** A temperature difference: 1 °C of difference is 1 K, 1 °F is 5/9 K. */
 const temperatureDifference = z
@@ -75,7 +125,7 @@ export const airSchema = z
 		})
 	])
 	.transform((air, ctx) =>
-		viaCore(ctx, () =>
+		viaCore(ctx, Object.keys(air), () =>
 			air.model === 'isa'
 				? isaAtmosphere(air.geopotentialAltitude, { temperatureOffset_K: air.temperatureOffset })
 				: airState({
@@ -107,6 +157,8 @@ const sectionSchema = z.object({
 const limitsSchema = z.object({ caution: fraction, limit: fraction });
 
 export const blockageRequestSchema = z.object({
+	/** Explicit, with the general estimate when a caller names none; never inferred. */
+	method: z.enum(BLOCKAGE_METHODS).default('catch-all'),
 	frontalArea: area,
 	section: sectionSchema,
 	dragCoefficient: z.number().min(0).max(3).optional(),
@@ -132,7 +184,7 @@ const gridSchema = z
 	.transform((g, ctx) =>
 		'y' in g
 			? { y_m: g.y, z_m: g.z }
-			: viaCore(ctx, () =>
+			: viaCore(ctx, Object.keys(g), () =>
 					uniformGrid({
 						rows: g.rows,
 						columns: g.columns,

@@ -1,9 +1,10 @@
 import { z } from 'zod';
 import { MAX_MATRIX_POINTS, MAX_POINTS_PER_PLANE } from '../calc/matrix';
+import { BLOCKAGE_METHODS } from '../calc/kinds';
 
 export { CAMPAIGN_STATES, type CampaignState } from '../workflow';
 
-export const SPEED_UNITS = ['m/s', 'km/h', 'm/h'] as const;
+export const SPEED_UNITS = ['m/s', 'km/h', 'mph'] as const;
 export const DOWNSTREAM_UNITS = ['model-lengths', 'mm'] as const;
 
 const positive = (what: string) =>
@@ -90,6 +91,8 @@ export const campaignSchema = z
 		fullScaleSpeed_mps: positive('the full-scale speed'),
 		fullScaleAltitude_m: z.number().min(-2000).max(20000),
 		reIndependenceThreshold: z.number().positive().nullable(),
+		/** Chosen by the owner; until then the default for the model's kind applies. */
+		blockageMethod: z.enum(BLOCKAGE_METHODS).optional(),
 		speedUnit: z.enum(SPEED_UNITS),
 		configurations: z
 			.array(configurationSchema)

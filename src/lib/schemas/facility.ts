@@ -25,6 +25,32 @@ function isTimeZone(zone: string): boolean {
 	}
 }
 
+/**
+ * Standard uncertainties (JCGM 100:2008) of a facility's instruments, used when readings are
+ * reduced. Starting values only, common practice, no source: each facility sets its own from its
+ * calibration certificates.
+ */
+export const INSTRUMENT_UNCERTAINTY_DEFAULTS = {
+	/** One probe reading, in pascals. */
+	readingUncertainty_Pa: 1,
+	/** The reference dynamic pressure, as a fraction of it. */
+	referenceQUncertainty: 0.01,
+	temperatureUncertainty_K: 0.2,
+	barometricUncertainty_Pa: 50,
+	/** Relative humidity, as a fraction (0.03 = 3 % RH). */
+	humidityUncertainty: 0.03
+} as const;
+
+const uncertainty = (max: number, fallback: number) => z.number().min(0).max(max).default(fallback);
+
+/**
+ * How slot proposals are cut: no proposed slot shorter than `minimumSlot_s`, and every slot on the
+ * `slotStep_s` grid of the facility's clock. Starting values, common practice, no source: a slot
+ * under an hour hardly pays for a model check and a warm-up run, and tunnel days are planned in
+ * quarter hours. Each facility sets its own.
+ */
+export const SLOT_DEFAULTS = { minimumSlot_s: 3600, slotStep_s: 900 } as const;
+
 /** One schema for the facility form, the JSON API and the database write; SI throughout. */
 export const facilitySchema = z
 	.object({
@@ -62,7 +88,31 @@ export const facilitySchema = z
 			.regex(/^[A-Z]{3}$/, { error: 'Use a three-letter code such as EUR.' }),
 		siteAltitude_m: z.number().min(-500).max(6000),
 		typicalTemperature_K: z.number().min(233.15).max(333.15),
-		typicalRelativeHumidity: z.number().min(0).max(1)
+		typicalRelativeHumidity: z.number().min(0).max(1),
+		readingUncertainty_Pa: uncertainty(1000, INSTRUMENT_UNCERTAINTY_DEFAULTS.readingUncertainty_Pa),
+		referenceQUncertainty: uncertainty(0.5, INSTRUMENT_UNCERTAINTY_DEFAULTS.referenceQUncertainty),
+		temperatureUncertainty_K: uncertainty(
+			10,
+			INSTRUMENT_UNCERTAINTY_DEFAULTS.temperatureUncertainty_K
+		),
+		barometricUncertainty_Pa: uncertainty(
+			5000,
+			INSTRUMENT_UNCERTAINTY_DEFAULTS.barometricUncertainty_Pa
+		),
+		humidityUncertainty: uncertainty(0.5, INSTRUMENT_UNCERTAINTY_DEFAULTS.humidityUncertainty),
+		minimumSlot_s: z
+			.number()
+			.min(0)
+			.max(24 * 3600, { error: 'A slot cannot be longer than a day.' })
+			.default(SLOT_DEFAULTS.minimumSlot_s),
+		// Whole minutes: slots are shown and entered to the minute, so a step of seconds would
+		// propose times the booking form cannot hold.
+		slotStep_s: z
+			.number()
+			.min(60, { error: 'The step must be at least one minute.' })
+			.max(24 * 3600, { error: 'The step cannot be longer than a day.' })
+			.multipleOf(60, { error: 'Use whole minutes.' })
+			.default(SLOT_DEFAULTS.slotStep_s)
 	})
 	.superRefine((f, ctx) => {
 		if (f.minSpeed_mps >= f.maxSpeed_mps)
@@ -132,6 +182,8 @@ export function facilityDefaults(): FacilityInput {
 		currency: 'EUR',
 		siteAltitude_m: 0,
 		typicalTemperature_K: 293.15,
-		typicalRelativeHumidity: 0.5
+		typicalRelativeHumidity: 0.5,
+		...INSTRUMENT_UNCERTAINTY_DEFAULTS,
+		...SLOT_DEFAULTS
 	};
 }

@@ -92,7 +92,8 @@ const TOKEN_ROUTES = new Map<string, Partial<Record<string, ApiTokenScope>>>([
 	['/api/v1/campaigns/[id]/matrix', { GET: 'campaigns:read' }],
 	['/api/v1/campaigns/[id]/revisions', { GET: 'campaigns:read' }],
 	['/api/v1/campaigns/[id]/revisions/[n]', { GET: 'campaigns:read' }],
-	['/api/v1/campaigns/[id]/readings', { GET: 'readings:read', POST: 'readings:write' }]
+	['/api/v1/campaigns/[id]/readings', { GET: 'readings:read', POST: 'readings:write' }],
+	['/api/v1/campaigns/[id]/results', { GET: 'readings:read' }]
 ]);
 
 /** The scope a token needs for `method` on SvelteKit route `routeId`; null if tokens are refused. */

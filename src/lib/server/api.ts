@@ -1,6 +1,7 @@
 import { json, type RequestEvent, type RequestHandler } from '@sveltejs/kit';
 import type { z } from 'zod';
 import { CalcInputError } from '../calc';
+import { requestWording } from '../schemas/calc';
 import { requireUser } from './guards';
 import { STATUS_OF_REFUSAL, type Refusal } from './outcome';
 
@@ -30,7 +31,8 @@ export function refusalResponse(refusal: Refusal): Response {
 export function fieldMessages(error: z.ZodError): Record<string, string[]> {
 	const fields: Record<string, string[]> = {};
 	for (const issue of error.issues) {
-		const key = issue.path.length ? issue.path.join('.') : '_';
+		// A refusal of the body as a whole is filed under `body`: clients never see a bare `_`.
+		const key = issue.path.length ? issue.path.join('.') : 'body';
 		(fields[key] ??= []).push(issue.message);
 	}
 	return fields;
@@ -95,13 +97,20 @@ export function tooLarge(limit_bytes = MAX_REQUEST_BODY_BYTES): Response {
 	);
 }
 
-/** Runs a calculation; input the core refuses becomes a 400 naming the parameter. */
-export function calculationResponse(run: () => unknown): Response {
+/**
+ * Runs a calculation; input the core refuses becomes a 400 naming the request's field, or
+ * saying in words which derived figure was out of range.
+ */
+export function calculationResponse(
+	run: () => unknown,
+	requestKeys: readonly string[] = []
+): Response {
 	try {
 		return json(run());
 	} catch (error) {
 		if (!(error instanceof CalcInputError)) throw error;
-		return apiError(400, 'invalid', error.message, { [error.parameter]: [error.message] });
+		const { field, message } = requestWording(error, requestKeys);
+		return apiError(400, 'invalid', message, field ? { [field]: [message] } : undefined);
 	}
 }
 
@@ -117,6 +126,7 @@ export function calculationEndpoint<S extends z.ZodType>(
 		requireUser(event.locals);
 		const body = await readJson(event, schema);
 		if (!body.ok) return body.response;
-		return calculationResponse(() => compute(body.data));
+		const keys = body.data && typeof body.data === 'object' ? Object.keys(body.data) : [];
+		return calculationResponse(() => compute(body.data), keys);
 	};
 }

@@ -26,7 +26,7 @@ const canBook = (u: SessionUser) => u.roles.includes('operator') || u.roles.incl
 const isStaff = (u: SessionUser) => canBook(u) || u.roles.includes('reviewer');
 // Written as a literal so SQLite can match the partial index `booking_active_start`; with bound
 // parameters it cannot prove the index's WHERE clause and would scan.
-const active = sql.raw(
+export const activeBooking = sql.raw(
 	`"booking"."state" in (${ACTIVE_BOOKING_STATES.map((s) => `'${s}'`).join(', ')})`
 );
 const when = (moment: Date) => `${utcMinute(moment)} UTC`;
@@ -47,7 +47,7 @@ export function collidingBooking(
 		.where(
 			and(
 				eq(booking.facilityId, facilityId),
-				active,
+				activeBooking,
 				lt(booking.start, new Date(slot.end)),
 				exceptId ? ne(booking.id, exceptId) : undefined
 			)
@@ -380,11 +380,21 @@ export function bookableCampaigns(db: Db, facilityId: string) {
 		}));
 }
 
-/** The first free slots that hold what the campaign still needs, from `from` on. */
-export function proposeFor(db: Db, facilityId: string, needed_s: number, from: number) {
+/**
+ * The first free slots that hold what the campaign still needs, from `from` on, cut by the
+ * facility's minimum slot and step; refused with the reason when the time does not fit.
+ */
+export function proposeFor(
+	db: Db,
+	facilityId: string,
+	needed_s: number,
+	from: number
+): Outcome<{ slots: Interval[] }> {
 	const f = getFacility(db, facilityId);
-	if (!f || needed_s <= 0) return [];
-	const horizon = new Date(from + 120 * 86_400_000);
+	if (!f) return refuse('not-found', 'No such facility.');
+	if (needed_s <= 0) return { ok: true, slots: [] };
+	const horizon_days = 120;
+	const horizon = new Date(from + horizon_days * 86_400_000);
 	const busy = [
 		...db
 			.select({ start: booking.start, end: booking.end })
@@ -392,7 +402,7 @@ export function proposeFor(db: Db, facilityId: string, needed_s: number, from: n
 			.where(
 				and(
 					eq(booking.facilityId, facilityId),
-					active,
+					activeBooking,
 					gt(booking.end, new Date(from)),
 					lt(booking.start, horizon)
 				)
@@ -400,12 +410,16 @@ export function proposeFor(db: Db, facilityId: string, needed_s: number, from: n
 			.all(),
 		...listClosures(db, facilityId, new Date(from), horizon)
 	].map((x) => ({ start: x.start.getTime(), end: x.end.getTime() }));
-	return proposeSlots(needed_s, {
+	const proposal = proposeSlots(needed_s, {
 		hours: f.openingHours,
 		timeZone: f.timeZone,
 		busy,
-		from_ms: from
+		from_ms: from,
+		horizon_days,
+		minimumSlot_s: f.minimumSlot_s,
+		slotStep_s: f.slotStep_s
 	});
+	return proposal.ok ? proposal : refuse('conflict', proposal.message);
 }
 
 /** A campaign's slots, for its own page. */

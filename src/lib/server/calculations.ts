@@ -12,6 +12,7 @@ import type { BlockageRequest, MatrixRequest } from '../schemas/calc';
 /** Blockage from a parsed API request (SI values already). */
 export function blockageFromRequest(req: BlockageRequest): Blockage {
 	return blockage({
+		method: req.method,
 		frontalArea_m2: req.frontalArea,
 		section: {
 			kind: req.section.kind,

@@ -167,3 +167,24 @@ export function campaignInput(c: Campaign): CampaignInput {
 		...c.definition
 	};
 }
+
+/**
+ * A campaign as `GET /api/v1/campaigns/:id` answers it: the fields exactly as PUT takes them, and
+ * beside them read-only fields whose names the campaign schema does not use, so PUT drops them.
+ */
+export function campaignResource(c: CampaignDetail) {
+	return {
+		...campaignInput(c),
+		id: c.id,
+		state: c.state,
+		teamId: c.teamId,
+		ownerId: c.ownerId,
+		ownerName: c.ownerName,
+		modelName: c.model.name,
+		facilityName: c.facility.name,
+		lastRevision: c.lastRevision,
+		approvedRevisionId: c.approvedRevisionId,
+		createdAt: c.createdAt,
+		updatedAt: c.updatedAt
+	};
+}

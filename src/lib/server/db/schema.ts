@@ -16,6 +16,7 @@ import type { NoteAnchor, RevisionSnapshot } from '../../review/types';
 import { BOOKING_STATES, CLOSURE_KINDS } from '../../booking/rules';
 import { CAMPAIGN_ACTIONS, CAMPAIGN_STATES, VERDICTS } from '../../workflow';
 import type { ApiTokenScope } from '../../schemas/api-token';
+import { INSTRUMENT_UNCERTAINTY_DEFAULTS, SLOT_DEFAULTS } from '../../schemas/facility';
 import { READING_KINDS } from '../../schemas/readings';
 
 const id = () =>
@@ -157,6 +158,25 @@ export const facility = sqliteTable('facility', {
 	siteAltitude_m: real('site_altitude_m').notNull(),
 	typicalTemperature_K: real('typical_temperature_k').notNull(),
 	typicalRelativeHumidity: real('typical_relative_humidity').notNull(),
+	readingUncertainty_Pa: real('reading_uncertainty_pa')
+		.notNull()
+		.default(INSTRUMENT_UNCERTAINTY_DEFAULTS.readingUncertainty_Pa),
+	referenceQUncertainty: real('reference_q_uncertainty')
+		.notNull()
+		.default(INSTRUMENT_UNCERTAINTY_DEFAULTS.referenceQUncertainty),
+	temperatureUncertainty_K: real('temperature_uncertainty_k')
+		.notNull()
+		.default(INSTRUMENT_UNCERTAINTY_DEFAULTS.temperatureUncertainty_K),
+	barometricUncertainty_Pa: real('barometric_uncertainty_pa')
+		.notNull()
+		.default(INSTRUMENT_UNCERTAINTY_DEFAULTS.barometricUncertainty_Pa),
+	humidityUncertainty: real('humidity_uncertainty')
+		.notNull()
+		.default(INSTRUMENT_UNCERTAINTY_DEFAULTS.humidityUncertainty),
+	/** Shortest slot the calendar proposes, in seconds. */
+	minimumSlot_s: real('minimum_slot_s').notNull().default(SLOT_DEFAULTS.minimumSlot_s),
+	/** Grid of the facility's clock that proposed slots start and end on, in seconds. */
+	slotStep_s: real('slot_step_s').notNull().default(SLOT_DEFAULTS.slotStep_s),
 	createdAt: createdAt()
 });
 

@@ -33,7 +33,11 @@ export function approvedLayout(db: DbOrTx, revisionId: string): ApprovedLayout |
 	const { definition, model, facility } = revision.snapshot;
 	let plan: MatrixPlan;
 	try {
-		plan = campaignPlan(definition, model, facility).plan;
+		// The correction the revision was approved with, whatever defaults have changed since.
+		plan = {
+			...campaignPlan(definition, model, facility).plan,
+			dynamicPressureFactor: revision.snapshot.figures.dynamicPressureFactor
+		};
 	} catch (error) {
 		if (!(error instanceof CalcInputError)) throw error;
 		return refuse(

@@ -1,15 +1,24 @@
 import { error, json } from '@sveltejs/kit';
 import { campaignSchema } from '$lib/schemas/campaign';
 import { readJson, refusalResponse } from '$lib/server/api';
-import { deleteCampaign, getCampaignFor, updateCampaign } from '$lib/server/campaigns';
+import {
+	campaignResource,
+	deleteCampaign,
+	getCampaignFor,
+	updateCampaign
+} from '$lib/server/campaigns';
 import { requireRole, requireUser } from '$lib/server/guards';
 import type { RequestHandler } from './$types';
 
+/**
+ * Answers the body PUT accepts, so a client can read, change a field and write it back; the
+ * read-only fields beside it are not in the campaign schema, which PUT's parse strips.
+ */
 export const GET: RequestHandler = ({ locals, params }) => {
 	const user = requireUser(locals);
 	const found = getCampaignFor(locals.db, user, params.id);
 	if (!found) error(404, { message: 'No such campaign.' });
-	return json({ campaign: found });
+	return json(campaignResource(found));
 };
 
 export const PUT: RequestHandler = async (event) => {
