@@ -40,3 +40,23 @@ describe('findings a person can read', () => {
 		expect(speedList([15, 20, 25, 30, 35])).toBe('15–35 m/s (5 speeds)');
 	});
 });
+
+describe('blockage inputs from the facility and the campaign', () => {
+	it('takes τ from the facility for Thom/Herriot solid blockage', () => {
+		// Thom/Herriot ε_sb = K·τ·V/C^1.5 (Barlow, Rae & Pope, Low-Speed Wind Tunnel Testing,
+		// 3rd ed., ch. 10): proportional to τ.
+		const thom = { ...sweep, blockageMethod: 'thom-herriot' as const };
+		const at = (tunnelShapeFactor: number) =>
+			campaignFigures(thom, model, { ...facility, tunnelShapeFactor }).blockage;
+		expect(at(0.9).method).toBe('thom-herriot');
+		expect(at(0.9).solidBlockage / at(0.86).solidBlockage).toBeCloseTo(0.9 / 0.86, 12);
+	});
+
+	it('uses the method the campaign chose, whatever inputs the model has', () => {
+		// The demo model has both C_D and a volume; the choice decides.
+		expect(
+			campaignFigures({ ...sweep, blockageMethod: 'none' }, model, facility).blockage
+		).toMatchObject({ method: 'none', dynamicPressureFactor: 1 });
+		expect(campaignFigures(sweep, model, facility).blockage.method).toBe('maskell');
+	});
+});

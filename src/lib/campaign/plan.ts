@@ -40,6 +40,8 @@ export type PlanFacility = FacilityEnvelope &
 		cornerFillet_m: number;
 		blockageCaution: number;
 		blockageLimit: number;
+		/** Absent from revisions frozen before facilities kept their own τ. */
+		tunnelShapeFactor?: number;
 	};
 
 export type CampaignPlan = {
@@ -124,7 +126,8 @@ export function campaignPlan(
 		dragCoefficient: model.dragCoefficient ?? undefined,
 		modelVolume_m3: model.modelVolume_m3 ?? undefined,
 		modelLength_m,
-		limits: { caution: facility.blockageCaution, limit: facility.blockageLimit }
+		limits: { caution: facility.blockageCaution, limit: facility.blockageLimit },
+		tunnelShapeFactor: facility.tunnelShapeFactor
 	});
 	const plan: MatrixPlan = {
 		configurations: def.configurations.map((c) => ({ id: c.id, baseline: c.baseline })),

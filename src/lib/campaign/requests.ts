@@ -34,7 +34,10 @@ export function blockageRequest(def: CampaignDefinition, model: PlanModel, facil
 		...(model.dragCoefficient == null ? {} : { dragCoefficient: model.dragCoefficient }),
 		...(model.modelVolume_m3 == null ? {} : { modelVolume: model.modelVolume_m3 }),
 		modelLength: model.fullScaleLength_m * scale,
-		limits: { caution: facility.blockageCaution, limit: facility.blockageLimit }
+		limits: { caution: facility.blockageCaution, limit: facility.blockageLimit },
+		...(facility.tunnelShapeFactor === undefined
+			? {}
+			: { tunnelShapeFactor: facility.tunnelShapeFactor })
 	};
 }
 

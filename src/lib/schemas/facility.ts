@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { DEFAULT_BLOCKAGE_LIMITS } from '../calc/blockage';
+import { DEFAULT_BLOCKAGE_LIMITS, DEFAULT_TUNNEL_SHAPE_FACTOR } from '../calc/blockage';
 import { SECTION_KINDS } from '../calc/kinds';
 
 export const WEEKDAYS = ['mon', 'tue', 'wed', 'thu', 'fri', 'sat', 'sun'] as const;
@@ -89,6 +89,8 @@ export const facilitySchema = z
 		siteAltitude_m: z.number().min(-500).max(6000),
 		typicalTemperature_K: z.number().min(233.15).max(333.15),
 		typicalRelativeHumidity: z.number().min(0).max(1),
+		/** τ of Thom/Herriot's solid blockage; it depends on the section's width/height ratio. */
+		tunnelShapeFactor: z.number().positive().max(2).default(DEFAULT_TUNNEL_SHAPE_FACTOR),
 		readingUncertainty_Pa: uncertainty(1000, INSTRUMENT_UNCERTAINTY_DEFAULTS.readingUncertainty_Pa),
 		referenceQUncertainty: uncertainty(0.5, INSTRUMENT_UNCERTAINTY_DEFAULTS.referenceQUncertainty),
 		temperatureUncertainty_K: uncertainty(
@@ -183,6 +185,7 @@ export function facilityDefaults(): FacilityInput {
 		siteAltitude_m: 0,
 		typicalTemperature_K: 293.15,
 		typicalRelativeHumidity: 0.5,
+		tunnelShapeFactor: DEFAULT_TUNNEL_SHAPE_FACTOR,
 		...INSTRUMENT_UNCERTAINTY_DEFAULTS,
 		...SLOT_DEFAULTS
 	};

@@ -11,6 +11,7 @@ import {
 import type { AdapterAccountType } from '@auth/sveltekit/adapters';
 import { ROLES, TEAM_KINDS } from '../../roles';
 import { MODEL_KINDS, SECTION_KINDS } from '../../calc/kinds';
+import { DEFAULT_TUNNEL_SHAPE_FACTOR } from '../../calc/blockage';
 import type { CampaignDefinition } from '../../schemas/campaign';
 import type { NoteAnchor, RevisionSnapshot } from '../../review/types';
 import { BOOKING_STATES, CLOSURE_KINDS } from '../../booking/rules';
@@ -158,6 +159,7 @@ export const facility = sqliteTable('facility', {
 	siteAltitude_m: real('site_altitude_m').notNull(),
 	typicalTemperature_K: real('typical_temperature_k').notNull(),
 	typicalRelativeHumidity: real('typical_relative_humidity').notNull(),
+	tunnelShapeFactor: real('tunnel_shape_factor').notNull().default(DEFAULT_TUNNEL_SHAPE_FACTOR),
 	readingUncertainty_Pa: real('reading_uncertainty_pa')
 		.notNull()
 		.default(INSTRUMENT_UNCERTAINTY_DEFAULTS.readingUncertainty_Pa),

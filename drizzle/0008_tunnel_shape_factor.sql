@@ -1,0 +1,1 @@
+ALTER TABLE `facility` ADD `tunnel_shape_factor` real DEFAULT 0.86 NOT NULL;
