@@ -1,6 +1,6 @@
 import { redirect, type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
-import { apiError, MAX_REQUEST_BODY_BYTES, tooLarge } from '$lib/server/api';
+import { apiError, MAX_REQUEST_BODY_BYTES, tooLarge, withHeaders } from '$lib/server/api';
 import { ATTACHMENT_MAX_BYTES } from '$lib/schemas/model';
 import { READINGS_MAX_BYTES } from '$lib/schemas/readings';
 import { authHandle } from '$lib/server/auth';
@@ -121,13 +121,8 @@ const SECURITY_HEADERS = {
 	'x-frame-options': 'DENY'
 };
 
-const setSecurityHeaders: Handle = async ({ event, resolve }) => {
-	const response = await resolve(event);
-	for (const [name, value] of Object.entries(SECURITY_HEADERS)) {
-		if (!response.headers.has(name)) response.headers.set(name, value);
-	}
-	return response;
-};
+const setSecurityHeaders: Handle = async ({ event, resolve }) =>
+	withHeaders(await resolve(event), SECURITY_HEADERS);
 
 export const handle = sequence(
 	attachDatabase,

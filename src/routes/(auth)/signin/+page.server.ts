@@ -4,6 +4,7 @@ import { zod4 } from 'sveltekit-superforms/adapters';
 import { homePath } from '$lib/roles';
 import { signInSchema } from '$lib/schemas/user';
 import { SIGN_IN_MESSAGES, type SignInRefusal } from '$lib/server/auth/credentials';
+import { sameOriginPath } from '$lib/server/auth/redirect';
 import { signInWithPassword } from '$lib/server/auth/sign-in';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -13,7 +14,8 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 		zod4(signInSchema),
 		{ errors: false }
 	);
-	if (locals.user) redirect(303, form.data.redirectTo ?? homePath(locals.user.roles));
+	if (locals.user)
+		redirect(303, sameOriginPath(form.data.redirectTo, url.origin) ?? homePath(locals.user.roles));
 	// A plain POST to Auth.js's own endpoint comes back here with `?code=` when refused.
 	const code = url.searchParams.get('code');
 	const refusal = Object.keys(SIGN_IN_MESSAGES).find((r) => r === code) as
@@ -40,6 +42,6 @@ export const actions: Actions = {
 					: SIGN_IN_MESSAGES[result.reason];
 			return message(form, text, { status: STATUS_OF_REFUSAL[result.reason] });
 		}
-		redirect(303, redirectTo ?? '/');
+		redirect(303, sameOriginPath(redirectTo, event.url.origin) ?? '/');
 	}
 };
