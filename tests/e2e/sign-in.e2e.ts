@@ -105,7 +105,7 @@ describe('the API', () => {
 		await page.waitForURL(url('/campaigns'));
 		const answer = await context.request.post(url('/api/v1/calc/atmosphere'), { data: body });
 		expect(answer.status()).toBe(200);
-		// ISO 2533:1975 via the domain primer's table: H = 5000 m → 255.650 K, 0.736116 kg/m³.
+		// ISO 2533:1975 table 5 (from memory): H = 5000 m → 255.650 K, 0.736116 kg/m³.
 		const { air } = await answer.json();
 		expect(air.temperature_K).toBeCloseTo(255.65, 3);
 		expect(air.density_kgm3).toBeCloseTo(0.736116, 5);

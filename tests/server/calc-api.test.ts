@@ -43,7 +43,7 @@ describe('POST /api/v1/calc/*', () => {
 		});
 		expect(response.status).toBe(200);
 		const { air } = await response.json();
-		// ISO 2533:1975 via the domain primer's table: H = 1000 m → 281.650 K, 89 874.6 Pa.
+		// ISO 2533:1975 table 5 (from memory): H = 1000 m → 281.650 K, 89 874.6 Pa.
 		expect(air.temperature_K).toBeCloseTo(281.65, 3);
 		expect(air.pressure_Pa).toBeCloseTo(89874.6, 0);
 	});

@@ -11,7 +11,7 @@ const rel = (actual: number, expected: number) => Math.abs(actual / expected - 1
 
 describe('ISA by geopotential altitude', () => {
 	// Check values computed from the ICAO equations; they agree with the ICAO tables
-	// (Tunnelwright domain primer §3, ISO 2533:1975 / ICAO Doc 7488/3).
+	// (ISO 2533:1975 table 5 / ICAO Doc 7488/3; from memory).
 	it.each([
 		[1000, 281.65, 89874.6, 1.111643, 1.75785e-5],
 		[2000, 275.15, 79495.2, 1.00649, 1.72596e-5],
@@ -39,7 +39,8 @@ describe('ISA by geopotential altitude', () => {
 	});
 
 	// Layer bases by geopotential altitude (ISO 2533:1975 table 4; U.S. Standard Atmosphere 1976
-	// table 4), base pressures as listed in the domain primer §3 [computed].
+	// table 4), base pressures evaluated by hand from the hydrostatic layer equations of the same
+	// standards.
 	it.each([
 		[32000, 228.65, 868.014],
 		[47000, 270.65, 110.906],

@@ -5,7 +5,7 @@ const closed = { kind: 'closed' as const, width_m: 2.0, height_m: 1.5 };
 
 describe('section area', () => {
 	it('subtracts four 45° corner fillets', () => {
-		// Each fillet is a right triangle of leg f: area f²/2 (domain primer §5: subtract fillets).
+		// Each 45° fillet is a right triangle of leg f: area f²/2, evaluated by hand.
 		expect(sectionArea({ ...closed, cornerFillet_m: 0.2 })).toBeCloseTo(3.0 - 4 * 0.02, 12);
 	});
 });
@@ -81,7 +81,7 @@ describe('blockage corrections, closed section', () => {
 
 	it('flags blockage over 5 % as a caution and over 7.5 % as a limit', () => {
 		// Closed sections: about 5 % preferred, up to about 7.5 % with corrections (common
-		// practice, no source; domain primer §5).
+		// practice, no source).
 		expect(
 			blockage({ method: 'catch-all', frontalArea_m2: 0.18, section: closed }).notes.map(
 				(n) => n.level

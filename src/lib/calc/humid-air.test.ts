@@ -40,8 +40,9 @@ describe('CIPM-2007 humid-air density', () => {
 		[25, 0.8],
 		[30, 0.6]
 	])('agrees with psychrolib (ASHRAE, ideal gas) at %d °C, %d RH', (t, rh) => {
-		// psychrolib 1.1.1 (ASHRAE Handbook Fundamentals 2017 ch. 1) omits Z: the domain primer
-		// puts the gap at about 3.5e-4 at 20 °C, 50 % RH.
+		// psychrolib 1.1.1 (ASHRAE Handbook Fundamentals 2017 ch. 1) omits CIPM-2007's
+		// compressibility factor Z (Picard et al., Metrologia 45 (2008) 149), about 1 − 3.5e-4 at
+		// 20 °C, 50 % RH (from memory).
 		const p = 101325;
 		const w = psychrolib.GetHumRatioFromRelHum(t, rh, p);
 		const reference = psychrolib.GetMoistAirDensity(t, w, p);

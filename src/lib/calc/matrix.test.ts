@@ -124,7 +124,7 @@ describe('estimateOccupancy', () => {
 	};
 
 	it('adds set-up, model and yaw changes, settling per speed, and a move and dwell per point', () => {
-		// Planning times are facility settings (domain primer §6, common practice); the sum is
+		// Planning times are facility settings (common practice, no source); the sum is
 		// checked here by hand for 2 configurations × 2 yaws × 3 speeds × 18 points × 2 repeats.
 		const o = estimateOccupancy(plan(), timing);
 		const points = 2 * 2 * 3 * 18 * 2;

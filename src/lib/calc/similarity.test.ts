@@ -27,7 +27,7 @@ function textbookAir(density_kgm3: number, dynamicViscosity_Pas: number): AirSta
 
 describe('flow quantities', () => {
 	it('q = ½ρV²', () => {
-		// Domain primer §2 [computed from the formula in any fluid-mechanics text]:
+		// q = ½ρV² (Anderson, Fundamentals of Aerodynamics, ch. 1), evaluated by hand:
 		// ρ = 1.225 kg/m³, V = 30 m/s → 551.25 Pa.
 		expect(dynamicPressure(30, textbookAir(1.225, 1.8e-5))).toBeCloseTo(551.25, 10);
 	});
@@ -42,7 +42,8 @@ describe('flow quantities', () => {
 	});
 
 	it('pitot speed inverts q', () => {
-		// V = √(2Δp/ρ) (domain primer §2): 551.25 Pa at 1.225 kg/m³ is 30 m/s.
+		// V = √(2Δp/ρ) (Barlow, Rae & Pope, Low-Speed Wind Tunnel Testing, ch. 4), by hand: 551.25 Pa
+		// at 1.225 kg/m³ is 30 m/s.
 		expect(pitotSpeed(551.25, 1.225)).toBeCloseTo(30, 10);
 	});
 
@@ -70,7 +71,8 @@ describe('similarity', () => {
 			fullScaleAir: sea,
 			tunnelAir: tunnel
 		});
-		// Re ratio = (V_m·L_m/ν_m)/(V_f·L_f/ν_f); equal Re at V_f·(L_f/L_m)·(ν_m/ν_f) (domain primer §2).
+		// Re ratio = (V_m·L_m/ν_m)/(V_f·L_f/ν_f); equal Re at V_f·(L_f/L_m)·(ν_m/ν_f) (Barlow, Rae &
+		// Pope, Low-Speed Wind Tunnel Testing, ch. 1).
 		const expectedRatio =
 			(50 * 1.15) / tunnel.kinematicViscosity_m2s / ((40 * 4.6) / sea.kinematicViscosity_m2s);
 		expect(s.reRatio).toBeCloseTo(expectedRatio, 12);

@@ -3,7 +3,7 @@ import { CalcInputError, pitotSpeed, propagateUncertainty } from './index';
 
 describe('propagateUncertainty (JCGM 100:2008, eq. 10)', () => {
 	it('matches the pitot-speed check value', () => {
-		// Domain primer §7 [computed from GUM eq. 10]: V = √(2Δp/ρ), Δp = 250 ± 2 Pa,
+		// JCGM 100:2008 eq. 10, evaluated by hand: V = √(2Δp/ρ), Δp = 250 ± 2 Pa,
 		// ρ = 1.2041 ± 0.003 kg/m³ → V = 20.378 m/s, u_c = 0.085 m/s.
 		const budget = propagateUncertainty(
 			(x) => pitotSpeed(x.dp!, x.rho!),

@@ -171,7 +171,7 @@ export function facilityDefaults(): FacilityInput {
 		yawMax_deg: 15,
 		blockageCaution: limits.caution,
 		blockageLimit: limits.limit,
-		// Planning times: common practice, no source (domain primer §6); each facility sets its own.
+		// Planning times: common practice, no source; each facility sets its own.
 		settling_s: 60,
 		traverseMove_s: 5,
 		yawChange_s: 45,

@@ -1,6 +1,11 @@
 import { eq } from 'drizzle-orm';
 import type { CampaignResults } from '../results/types';
-import { reduceCampaign, type MeasuredConditions, type ReductionInput } from '../results/reduce';
+import {
+	KIND_INDEX,
+	reduceCampaign,
+	type MeasuredConditions,
+	type ReductionInput
+} from '../results/reduce';
 import type { SessionUser } from '../roles';
 import { canReadCampaign } from './access';
 import type { Db } from './db/open';
@@ -8,7 +13,6 @@ import { campaign, facility } from './db/schema';
 import { refuse, type Outcome } from './outcome';
 import { approvedLayout } from './readings/layout';
 import { currentConditions } from './readings/coverage';
-import { KIND_INDEX } from '../results/reduce';
 
 /** Re-independence tolerance when none is asked for: 2 % (common practice, no single source). */
 export const DEFAULT_SWEEP_TOLERANCE = 0.02;
