@@ -32,6 +32,28 @@ describe('NumberListInput', () => {
 		expect(bound.value).toEqual([0.02, 0.04, 0.06]);
 	});
 
+	it('keeps the separator being typed when the bound list comes back as a copy', async () => {
+		let list = $state([30, 40]);
+		render(NumberListInput, {
+			props: {
+				get value() {
+					return list;
+				},
+				set value(v: number[]) {
+					// As a form store does: the parent keeps a copy, not the array it was given.
+					list = [...v];
+				},
+				unit: 'm/s',
+				si: 'm/s',
+				'aria-label': 'Speeds'
+			}
+		});
+		const input = screen.getByLabelText<HTMLInputElement>('Speeds');
+		await userEvent.type(input, ', 42');
+		expect(input.value).toBe('30, 40, 42');
+		expect(list).toEqual([30, 40, 42]);
+	});
+
 	it('keeps the last good list and names the entry that is not a number', async () => {
 		const { bound, input } = mount([1, 2], 'm', 'm');
 		await userEvent.type(input, ', x3');
