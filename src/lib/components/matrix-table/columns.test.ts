@@ -6,7 +6,6 @@ import {
 	formatWithUnit,
 	headerText,
 	matrixColumns,
-	matrixFilterOptions,
 	type MatrixColumnId,
 	type MatrixLabels
 } from './columns';
@@ -93,23 +92,5 @@ describe('matrixColumns', () => {
 		expect(formatWithUnit(column('speed_mps'), 25)).toBe('25.0 m/s');
 		expect(formatWithUnit(column('yaw_deg'), -5)).toBe('-5.0°');
 		expect(formatWithUnit(column('planeId'), 'wake-far')).toBe('wake-far');
-	});
-});
-
-describe('matrixFilterOptions', () => {
-	it('lists configurations and planes once each, in run order, with their labels', () => {
-		const options = matrixFilterOptions(rows, { planes: { 'wake-far': 'Far wake, x = 1.5 m' } });
-		expect(options.configurations).toEqual([
-			{ value: 'baseline', label: 'baseline' },
-			{ value: 'spoiler', label: 'spoiler' }
-		]);
-		expect(options.planes).toEqual([
-			{ value: 'wake-near', label: 'wake-near' },
-			{ value: 'wake-far', label: 'Far wake, x = 1.5 m' }
-		]);
-	});
-
-	it('offers nothing for an empty matrix', () => {
-		expect(matrixFilterOptions([])).toEqual({ configurations: [], planes: [] });
 	});
 });

@@ -146,29 +146,3 @@ export function matrixColumns(labels: () => MatrixLabels): MatrixColumn[] {
 		})
 	];
 }
-
-export type FilterOption = { value: string; label: string };
-
-export type MatrixFilterOptions = {
-	configurations: FilterOption[];
-	planes: FilterOption[];
-};
-
-/** The configurations and planes present in the rows, in the order they are first run. */
-export function matrixFilterOptions(
-	rows: readonly MatrixRow[],
-	labels: MatrixLabels = {}
-): MatrixFilterOptions {
-	const configurations = new Set<string>();
-	const planes = new Set<string>();
-	for (const row of rows) {
-		configurations.add(row.configurationId);
-		planes.add(row.planeId);
-	}
-	const options = (ids: Set<string>, names: Record<string, string> | undefined) =>
-		Array.from(ids, (value) => ({ value, label: formatLabel(value, names) }));
-	return {
-		configurations: options(configurations, labels.configurations),
-		planes: options(planes, labels.planes)
-	};
-}

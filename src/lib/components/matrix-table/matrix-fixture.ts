@@ -1,4 +1,4 @@
-import { createTable, functionalUpdate, type Table, type TableState } from '@tanstack/table-core';
+import type { Table } from '@tanstack/table-core';
 import {
 	expandMatrix,
 	isaAtmosphere,
@@ -7,7 +7,10 @@ import {
 	type MatrixRow
 } from '$lib/calc';
 import { matrixColumns, type MatrixColumn, type MatrixLabels } from './columns';
-import { matrixTableOptions } from './model';
+import { planColumns, type ColumnarMatrix } from './columnar';
+import { createMatrixView, type MatrixView } from './matrix-view.svelte';
+import { createSvelteTable } from './table.svelte';
+import { matrixTableOptions } from './table-options';
 
 export const FIXTURE_SPEEDS_MPS = [20, 25, 30, 35, 40];
 
@@ -48,27 +51,30 @@ export function fixtureRows(grid: FixtureGrid = FULL_GRID): MatrixRow[] {
 	return expandMatrix(fixturePlan(grid));
 }
 
-/**
- * The component's table-core pipeline without Svelte: state is a plain variable fed back through
- * `setOptions`, the way any table-core adapter does it.
- */
+export type HeadlessMatrixTable = {
+	table: Table<MatrixRow>;
+	columns: MatrixColumn[];
+	matrix: ColumnarMatrix;
+	view: MatrixView;
+	/** The points listed now, as the rows they were made from; group headings left out. */
+	listedPoints: () => MatrixRow[];
+};
+
+/** The component's table and view without the component: the same state, stages and options. */
 export function headlessMatrixTable(
-	rows: MatrixRow[],
+	plan: MatrixPlan,
 	labels: MatrixLabels = {}
-): { table: Table<MatrixRow>; columns: MatrixColumn[] } {
+): HeadlessMatrixTable {
 	const columns = matrixColumns(() => labels);
-	let state = {} as TableState;
-	const table = createTable<MatrixRow>({
-		...matrixTableOptions(columns),
-		data: rows,
-		state,
-		onStateChange: (updater) => {
-			state = functionalUpdate(updater, state);
-			table.setOptions((previous) => ({ ...previous, state }));
-		},
-		renderFallbackValue: null
-	});
-	state = table.initialState;
-	table.setOptions((previous) => ({ ...previous, state }));
-	return { table, columns };
+	const table = createSvelteTable(matrixTableOptions(columns));
+	const matrix = planColumns(plan);
+	// The rows the same core expands, to check the points listed against.
+	const rows = expandMatrix(plan);
+	const view = createMatrixView(() => matrix, table, columns);
+	const listedPoints = () =>
+		Array.from(
+			view.lines.filter((line) => line >= 0),
+			(p) => rows[p]!
+		);
+	return { table, columns, matrix, view, listedPoints };
 }
