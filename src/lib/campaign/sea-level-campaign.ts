@@ -1,4 +1,5 @@
 import type { CampaignInput } from '../schemas/campaign';
+import { startingGrid } from './defaults';
 import type { FacilityChoice, ModelChoice } from './plan';
 
 /*
@@ -65,15 +66,7 @@ export const seaLevelForm: CampaignInput = {
 			id: 'x1',
 			label: '',
 			downstream: { value: 1, unit: 'model-lengths' },
-			grid: {
-				mode: 'uniform',
-				rows: 5,
-				columns: 7,
-				rowSpacing_m: 0.02,
-				columnSpacing_m: 0.02,
-				firstRow_m: 0.01,
-				firstColumn_m: -0.06
-			}
+			grid: startingGrid()
 		}
 	],
 	dwellPerPoint_s: 10,
