@@ -1,5 +1,4 @@
 import {
-	CalcInputError,
 	envelopeFindings,
 	estimateOccupancy,
 	occupancyCost,
@@ -9,7 +8,7 @@ import {
 	type Occupancy,
 	type SpeedCondition
 } from '../calc';
-import { campaignDefinitionSchema, type CampaignDefinition } from '../schemas/campaign';
+import type { CampaignDefinition } from '../schemas/campaign';
 import { groupFindings } from './finding-groups';
 import { campaignPlan, type CampaignPlan, type PlanFacility, type PlanModel } from './plan';
 
@@ -94,33 +93,4 @@ export function pictureFigures(figures: CampaignFigures): PictureFigures {
 		speeds: figures.speeds,
 		findings: figures.findings
 	};
-}
-
-/** The editor's figures for the form as it stands. */
-export type LiveFigures =
-	| { state: 'unchosen' }
-	| { state: 'problem'; problem: string }
-	| { state: 'ready'; figures: CampaignFigures };
-
-/**
- * The stored figures' own computation on the form's current values: a value the form's schema
- * refuses, or one the core refuses, is the problem shown instead of figures.
- */
-export function liveFigures(
-	form: unknown,
-	model: PlanModel | undefined,
-	facility: CostedFacility | undefined
-): LiveFigures {
-	if (!model || !facility) return { state: 'unchosen' };
-	const parsed = campaignDefinitionSchema.safeParse(form);
-	if (!parsed.success) {
-		const issue = parsed.error.issues[0]!;
-		return { state: 'problem', problem: `Check the form: ${issue.message}` };
-	}
-	try {
-		return { state: 'ready', figures: campaignFigures(parsed.data, model, facility) };
-	} catch (error) {
-		if (error instanceof CalcInputError) return { state: 'problem', problem: error.message };
-		throw error;
-	}
 }

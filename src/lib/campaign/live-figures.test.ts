@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { DEMO_CAMPAIGNS, DEMO_FACILITIES, DEMO_MODELS } from '../../../scripts/demo-scenario';
 import { expandMatrix } from '../calc';
 import { campaignSchema, matrixPointCount } from '../schemas/campaign';
-import { campaignFigures, liveFigures } from './figures';
+import { campaignFigures } from './figures';
+import { liveFigures } from './live-figures';
 import { seaLevelFacility, seaLevelForm, seaLevelModel } from './sea-level-campaign';
 
 // ISO 2533:1975 table (ICAO Doc 7488), sea level: ρ = 1.225 kg/m³, μ = 1.7894e-5 Pa·s,

@@ -1,6 +1,6 @@
 import { render, screen, within } from '@testing-library/svelte';
 import { describe, expect, it } from 'vitest';
-import { liveFigures } from '$lib/campaign/figures';
+import { liveFigures } from '$lib/campaign/live-figures';
 import { seaLevelFacility, seaLevelForm, seaLevelModel } from '$lib/campaign/sea-level-campaign';
 import LiveFiguresPanel from './LiveFiguresPanel.svelte';
 
@@ -13,7 +13,8 @@ const panelFor = (form: unknown, chosen = true) =>
 
 const panel = () => screen.getByRole('region', { name: 'Figures' });
 
-describe('LiveFiguresPanel', () => {
+// The first render loads the panel's components into jsdom, which takes seconds on a busy machine.
+describe('LiveFiguresPanel', { timeout: 20_000 }, () => {
 	it('shows one row per speed with the figures of ISA sea-level air, up to date', () => {
 		panelFor(seaLevelForm);
 		expect(panel().getAttribute('aria-busy')).toBe('false');
