@@ -61,7 +61,10 @@ describe('drafting a campaign from scratch', () => {
 		expect(await limit.getAttribute('data-level')).toBe('limit');
 
 		await page.getByRole('button', { name: 'Save draft' }).click();
-		await page.getByText(/40 m\/s is outside/).waitFor();
+		await page
+			.locator('#campaign-form')
+			.getByText(/40 m\/s is above/)
+			.waitFor();
 		await speeds.fill('20, 30');
 		await page.getByRole('button', { name: 'Save draft' }).click();
 		await page.waitForURL(/\/campaigns\/[0-9a-f-]{36}$/);

@@ -101,7 +101,7 @@ describe('campaign drafts', () => {
 		expect(createCampaign(db, w.aeroA, { ...w.input(), speeds_mps: [30, 75] })).toMatchObject({
 			ok: false,
 			field: 'speeds_mps',
-			message: expect.stringMatching(/75 m\/s is outside/)
+			message: expect.stringMatching(/75 m\/s is above the facility's maximum/)
 		});
 		expect(createCampaign(db, w.aeroA, { ...w.input(), yawAngles_deg: [0, 45] })).toMatchObject({
 			ok: false,

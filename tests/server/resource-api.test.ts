@@ -95,7 +95,9 @@ describe('the resource API enforces roles and teams', () => {
 			body: { ...w.input(), speeds_mps: [90] }
 		});
 		expect(outside.status).toBe(400);
-		expect(outside.body.error.fields.speeds_mps[0]).toMatch(/outside/);
+		expect(outside.body.error.fields.speeds_mps[0]).toMatch(
+			/90 m\/s is above the facility's maximum/
+		);
 		expect((await call(campaigns.GET, db, w.admin)).body.campaigns).toEqual([]);
 	});
 

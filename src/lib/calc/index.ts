@@ -72,24 +72,18 @@ export { runLayout, locatePoint, pointAt } from './runs';
 export type { PlannedRun, RunIdentity, RunLayout, PointPosition } from './runs';
 export {
 	expandMatrix,
-	speedConditions,
-	envelopeFindings,
 	matrixSize,
 	validatePlan,
-	uniformGrid,
 	MAX_MATRIX_POINTS,
 	MAX_POINTS_PER_PLANE
 } from './matrix';
-export type {
-	MatrixPlan,
-	MatrixRow,
-	MeasurementPlane,
-	ProbeGrid,
-	Configuration,
-	SpeedCondition,
-	FacilityEnvelope,
-	UniformGridSpec
-} from './matrix';
+export type { MatrixPlan, MatrixRow, MeasurementPlane, Configuration } from './matrix';
+export { uniformGrid } from './probe-grid';
+export type { ProbeGrid, UniformGridSpec } from './probe-grid';
+export { speedCondition, speedConditions } from './speed-conditions';
+export type { SpeedCondition, FlowSetting } from './speed-conditions';
+export { envelopeFindings, flowFindings, settingFindings } from './envelope';
+export type { FacilityEnvelope } from './envelope';
 export { estimateOccupancy } from './occupancy';
 export type { FacilityTiming, Occupancy } from './occupancy';
 export { propagateUncertainty } from './uncertainty';

@@ -2,7 +2,6 @@ import { describe, expect, it } from 'vitest';
 import {
 	CalcInputError,
 	dynamicPressure,
-	envelopeFindings,
 	estimateOccupancy,
 	expandMatrix,
 	isaAtmosphere,
@@ -151,44 +150,5 @@ describe('estimateOccupancy', () => {
 		expect(() => estimateOccupancy(plan(), { ...timing, settling_s: -1 })).toThrow(
 			/facility.settling_s/
 		);
-	});
-});
-
-describe('envelope findings', () => {
-	it('flags speed, q, Mach and yaw outside the facility’s envelope', () => {
-		const envelope = {
-			minSpeed_mps: 25,
-			maxSpeed_mps: 35,
-			maxDynamicPressure_Pa: 600,
-			yawMin_deg: -3,
-			yawMax_deg: 3
-		};
-		const codes = envelopeFindings(plan({ speeds_mps: [20, 30, 110] }), envelope).map(
-			(f) => f.code
-		);
-		expect(codes).toEqual([
-			'speed-below-envelope',
-			'speed-above-envelope',
-			'q-above-envelope',
-			'mach-compressible',
-			'yaw-outside-turntable'
-		]);
-		expect(envelopeFindings(plan({ speeds_mps: [30], yawAngles_deg: [0] }), envelope)).toEqual([]);
-	});
-
-	it('holds the q limit against the q the tunnel is set to, not the blockage-corrected q', () => {
-		// q = ½ρV² at sea level, 40 m/s: 980 Pa as set (ISO 2533:1975 ρ = 1.225 kg/m³). With a
-		// correction factor of 1.2 the model sees 1176 Pa, but the fan sets 980 Pa.
-		const limit = {
-			minSpeed_mps: 5,
-			maxSpeed_mps: 50,
-			maxDynamicPressure_Pa: 1000,
-			yawMin_deg: -3,
-			yawMax_deg: 3
-		};
-		const corrected = plan({ speeds_mps: [40], yawAngles_deg: [0], dynamicPressureFactor: 1.2 });
-		expect(envelopeFindings(corrected, limit).map((f) => f.code)).not.toContain('q-above-envelope');
-		const over = { ...limit, maxDynamicPressure_Pa: 950 };
-		expect(envelopeFindings(corrected, over).map((f) => f.code)).toContain('q-above-envelope');
 	});
 });

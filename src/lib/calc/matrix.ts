@@ -6,15 +6,11 @@ import {
 	requirePositive,
 	requireWholeNumber
 } from './errors';
-import { finding, type Finding } from './findings';
-import { dynamicPressure, INCOMPRESSIBLE_MACH_LIMIT, machNumber, reynoldsNumber } from './flow';
-import { pascalsToMmH2O } from './units';
+import type { ProbeGrid } from './probe-grid';
+import { speedConditions, type SpeedCondition } from './speed-conditions';
 
 export const MAX_POINTS_PER_PLANE = 10_000;
 export const MAX_MATRIX_POINTS = 250_000;
-
-/** Probe positions in a traverse plane: rows at heights y, columns at lateral positions z. */
-export type ProbeGrid = { y_m: number[]; z_m: number[] };
 
 export type MeasurementPlane = {
 	id: string;
@@ -43,16 +39,6 @@ export type MatrixPlan = {
 	dynamicPressureFactor?: number;
 };
 
-/** What holds at one tunnel speed, whatever the configuration, yaw or probe point. */
-export type SpeedCondition = {
-	speed_mps: number;
-	modelRe: number;
-	dynamicPressure_Pa: number;
-	dynamicPressure_mmH2O: number;
-	mach: number;
-	correctedDynamicPressure_Pa: number;
-};
-
 /** One measured point, in run order. */
 export type MatrixRow = SpeedCondition & {
 	/** 1-based position in the run order. */
@@ -69,29 +55,6 @@ export type MatrixRow = SpeedCondition & {
 	y_m: number;
 	z_m: number;
 };
-
-export type UniformGridSpec = {
-	rows: number;
-	columns: number;
-	rowSpacing_m: number;
-	columnSpacing_m: number;
-	firstRow_m?: number;
-	firstColumn_m?: number;
-};
-
-/** A rectangular probe grid of evenly spaced rows and columns. */
-export function uniformGrid(spec: UniformGridSpec): ProbeGrid {
-	requireWholeNumber('rows', spec.rows, 1);
-	requireWholeNumber('columns', spec.columns, 1);
-	requirePositive('rowSpacing_m', spec.rowSpacing_m);
-	requirePositive('columnSpacing_m', spec.columnSpacing_m);
-	const y0 = requireFinite('firstRow_m', spec.firstRow_m ?? 0);
-	const z0 = requireFinite('firstColumn_m', spec.firstColumn_m ?? 0);
-	return {
-		y_m: Array.from({ length: spec.rows }, (_, i) => y0 + i * spec.rowSpacing_m),
-		z_m: Array.from({ length: spec.columns }, (_, j) => z0 + j * spec.columnSpacing_m)
-	};
-}
 
 function requireDistinct(parameter: string, values: readonly (number | string)[]): void {
 	const seen = new Set<number | string>();
@@ -169,22 +132,6 @@ export function validatePlan(plan: MatrixPlan): void {
 	}
 }
 
-/** The flow quantities at each of the plan's speeds, in the plan's order. */
-export function speedConditions(plan: MatrixPlan): SpeedCondition[] {
-	const factor = plan.dynamicPressureFactor ?? 1;
-	return plan.speeds_mps.map((speed_mps) => {
-		const q = dynamicPressure(speed_mps, plan.tunnelAir);
-		return {
-			speed_mps,
-			modelRe: reynoldsNumber(speed_mps, plan.modelReferenceLength_m, plan.tunnelAir),
-			dynamicPressure_Pa: q,
-			dynamicPressure_mmH2O: pascalsToMmH2O(q),
-			mach: machNumber(speed_mps, plan.tunnelAir),
-			correctedDynamicPressure_Pa: q * factor
-		};
-	});
-}
-
 /**
  * Expands the plan into one row per measured point, in run order: configuration, then yaw,
  * then speed, then plane, then repeat, then the plane's points row by row. Flow quantities
@@ -233,78 +180,4 @@ export function expandMatrix(plan: MatrixPlan): MatrixRow[] {
 		}
 	}
 	return rows;
-}
-
-/** The facility's limits a plan is checked against. */
-export type FacilityEnvelope = {
-	minSpeed_mps: number;
-	maxSpeed_mps: number;
-	maxDynamicPressure_Pa: number;
-	yawMin_deg: number;
-	yawMax_deg: number;
-};
-
-/** Findings for speeds, q, Mach and yaw against the facility's envelope. */
-export function envelopeFindings(
-	plan: MatrixPlan,
-	envelope: FacilityEnvelope,
-	conditions: SpeedCondition[] = speedConditions(plan)
-): Finding[] {
-	const notes: Finding[] = [];
-	for (const c of conditions) {
-		const v = c.speed_mps.toFixed(1);
-		if (c.speed_mps > envelope.maxSpeed_mps) {
-			notes.push(
-				finding(
-					'limit',
-					'speed-above-envelope',
-					`${v} m/s is above the facility's maximum of ${envelope.maxSpeed_mps} m/s.`,
-					c.speed_mps
-				)
-			);
-		} else if (c.speed_mps < envelope.minSpeed_mps) {
-			notes.push(
-				finding(
-					'limit',
-					'speed-below-envelope',
-					`${v} m/s is below the facility's minimum of ${envelope.minSpeed_mps} m/s.`,
-					c.speed_mps
-				)
-			);
-		}
-		// The facility's limit is on the q the tunnel is set to; the blockage-corrected q is what
-		// the model feels, not what the fan and the structure see.
-		if (c.dynamicPressure_Pa > envelope.maxDynamicPressure_Pa) {
-			notes.push(
-				finding(
-					'limit',
-					'q-above-envelope',
-					`At ${v} m/s, q = ${c.dynamicPressure_Pa.toFixed(0)} Pa (as set, before blockage correction) is above the facility's maximum of ${envelope.maxDynamicPressure_Pa} Pa.`,
-					c.speed_mps
-				)
-			);
-		}
-		if (c.mach > INCOMPRESSIBLE_MACH_LIMIT) {
-			notes.push(
-				finding(
-					'limit',
-					'mach-compressible',
-					`At ${v} m/s the Mach number is ${c.mach.toFixed(2)}, above ${INCOMPRESSIBLE_MACH_LIMIT}.`,
-					c.speed_mps
-				)
-			);
-		}
-	}
-	for (const yaw of plan.yawAngles_deg) {
-		if (yaw < envelope.yawMin_deg || yaw > envelope.yawMax_deg) {
-			notes.push(
-				finding(
-					'limit',
-					'yaw-outside-turntable',
-					`Yaw ${yaw}° is outside the turntable's ${envelope.yawMin_deg}° to ${envelope.yawMax_deg}°.`
-				)
-			);
-		}
-	}
-	return notes;
 }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { DEMO_CAMPAIGNS, DEMO_FACILITIES, DEMO_MODELS } from '../../../scripts/demo-scenario';
-import { campaignFigures, speedList } from './figures';
+import { campaignFigures } from './figures';
 
 // The demo's AM-3 sweep (nine speeds, 15–55 m/s) as input only; the checks are on the shape of
 // the findings, not on demo numbers.
@@ -31,13 +31,6 @@ describe('findings a person can read', () => {
 		// No finding repeats per speed.
 		const codes = figures.findings.map((f) => f.code);
 		expect(new Set(codes).size).toBe(codes.length);
-	});
-
-	it('lists a few speeds in full and a long sweep as a range', () => {
-		expect(speedList([20])).toBe('20 m/s');
-		expect(speedList([25, 20])).toBe('20 and 25 m/s');
-		expect(speedList([20, 25, 30])).toBe('20, 25 and 30 m/s');
-		expect(speedList([15, 20, 25, 30, 35])).toBe('15–35 m/s (5 speeds)');
 	});
 });
 

@@ -2,6 +2,7 @@ import {
 	airState,
 	blockage,
 	isaAtmosphere,
+	speedCondition,
 	uniformGrid,
 	type AirState,
 	type Blockage,
@@ -43,6 +44,20 @@ export type PlanFacility = FacilityEnvelope &
 		/** Absent from revisions frozen before facilities kept their own τ. */
 		tunnelShapeFactor?: number;
 	};
+
+/** A scale model as the campaign editor offers it. */
+export type ModelChoice = PlanModel & { id: string; name: string };
+
+/** A facility as the campaign editor offers it, with the values it suggests for the air. */
+export type FacilityChoice = PlanFacility & {
+	id: string;
+	name: string;
+	hourlyRate: string;
+	currency: string;
+	siteAltitude_m: number;
+	typicalTemperature_K: number;
+	typicalRelativeHumidity: number;
+};
 
 export type CampaignPlan = {
 	plan: MatrixPlan;
@@ -91,6 +106,28 @@ export function downstreamMetres(
 	return d.unit === 'mm' ? d.value / 1000 : d.value * modelLength_m;
 }
 
+/** The model-scale length Re is based on. */
+export function modelReferenceLength(
+	model: Pick<PlanModel, 'referenceLength_m' | 'scaleDenominator'>
+) {
+	return model.referenceLength_m / model.scaleDenominator;
+}
+
+/**
+ * The model's Re at any tunnel speed, by the core's computation behind the figures' speed
+ * table (the same reference length and tunnel air), for drawing Re against speed.
+ */
+export function modelReynoldsAt(
+	air: CampaignDefinition['air'],
+	model: Pick<PlanModel, 'referenceLength_m' | 'scaleDenominator'>
+): (speed_mps: number) => number {
+	const setting = {
+		modelReferenceLength_m: modelReferenceLength(model),
+		tunnelAir: tunnelAirOf(air)
+	};
+	return (speed_mps) => speedCondition(setting, speed_mps).modelRe;
+}
+
 export function tunnelAirOf(air: CampaignDefinition['air']): AirState {
 	return air.model === 'isa'
 		? isaAtmosphere(air.siteAltitude_m, { temperatureOffset_K: air.temperatureOffset_K })
@@ -135,13 +172,12 @@ export function campaignPlan(
 		yawAngles_deg: def.yawAngles_deg,
 		planes: def.planes.map((p) => ({
 			id: p.id,
-			downstream_m:
-				p.downstream.unit === 'mm' ? p.downstream.value / 1000 : p.downstream.value * modelLength_m,
+			downstream_m: downstreamMetres(p.downstream, modelLength_m),
 			grid: probeGrid(p.grid)
 		})),
 		dwellPerPoint_s: def.dwellPerPoint_s,
 		repeats: def.repeats,
-		modelReferenceLength_m: model.referenceLength_m * scale,
+		modelReferenceLength_m: modelReferenceLength(model),
 		tunnelAir,
 		dynamicPressureFactor: correction.dynamicPressureFactor
 	};

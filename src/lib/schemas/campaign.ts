@@ -80,6 +80,69 @@ function duplicateIndex<T>(values: T[]): number {
 	return values.findIndex((v, i) => values.indexOf(v) !== i);
 }
 
+/** What a campaign stores as its JSON definition: everything but its identity and links. */
+const definitionShape = {
+	air: airAssumptionSchema,
+	fullScaleSpeed_mps: positive('the full-scale speed'),
+	fullScaleAltitude_m: z.number().min(-2000).max(20000),
+	reIndependenceThreshold: z.number().positive().nullable(),
+	/** Chosen by the owner; until then the default for the model's kind applies. */
+	blockageMethod: z.enum(BLOCKAGE_METHODS).optional(),
+	speedUnit: z.enum(SPEED_UNITS),
+	configurations: z.array(configurationSchema).min(1, { error: 'Add at least one configuration.' }),
+	speeds_mps: z.array(positive('a speed')).min(1, { error: 'Add at least one speed.' }),
+	yawAngles_deg: z
+		.array(z.number().min(-180).max(180))
+		.min(1, { error: 'Add at least one yaw angle.' }),
+	planes: z.array(planeSchema).min(1, { error: 'Add at least one measurement plane.' }),
+	dwellPerPoint_s: z.number().min(0).max(3600),
+	repeats: z.number().int().min(1).max(20)
+};
+
+function checkDefinition(
+	c: z.infer<z.ZodObject<typeof definitionShape>>,
+	ctx: z.RefinementCtx
+): void {
+	const dupSpeed = duplicateIndex(c.speeds_mps);
+	if (dupSpeed >= 0)
+		ctx.addIssue({
+			code: 'custom',
+			path: ['speeds_mps'],
+			message: `The speed ${c.speeds_mps[dupSpeed]} m/s is listed twice.`
+		});
+	const dupYaw = duplicateIndex(c.yawAngles_deg);
+	if (dupYaw >= 0)
+		ctx.addIssue({
+			code: 'custom',
+			path: ['yawAngles_deg'],
+			message: `The yaw angle ${c.yawAngles_deg[dupYaw]}° is listed twice.`
+		});
+	if (duplicateIndex(c.configurations.map((x) => x.id)) >= 0)
+		ctx.addIssue({
+			code: 'custom',
+			path: ['configurations'],
+			message: 'Each configuration needs its own id.'
+		});
+	if (duplicateIndex(c.planes.map((x) => x.id)) >= 0)
+		ctx.addIssue({ code: 'custom', path: ['planes'], message: 'Each plane needs its own id.' });
+	if (c.configurations.filter((x) => x.baseline).length !== 1)
+		ctx.addIssue({
+			code: 'custom',
+			path: ['configurations'],
+			message: 'Mark exactly one configuration as the baseline.'
+		});
+	const points = matrixPointCount(c);
+	if (points > MAX_MATRIX_POINTS)
+		ctx.addIssue({
+			code: 'custom',
+			path: ['planes'],
+			message: `The matrix has ${points.toLocaleString('en-GB')} points; at most ${MAX_MATRIX_POINTS.toLocaleString('en-GB')} are allowed.`
+		});
+}
+
+/** A campaign's definition alone, as the editor checks it before computing its figures. */
+export const campaignDefinitionSchema = z.object(definitionShape).superRefine(checkDefinition);
+
 /** One schema for the campaign form, the JSON API and the database write. */
 export const campaignSchema = z
 	.object({
@@ -87,68 +150,12 @@ export const campaignSchema = z
 		objective: z.string().trim().max(4000),
 		modelId: z.string().min(1, { error: 'Choose a model.' }),
 		facilityId: z.string().min(1, { error: 'Choose a facility.' }),
-		air: airAssumptionSchema,
-		fullScaleSpeed_mps: positive('the full-scale speed'),
-		fullScaleAltitude_m: z.number().min(-2000).max(20000),
-		reIndependenceThreshold: z.number().positive().nullable(),
-		/** Chosen by the owner; until then the default for the model's kind applies. */
-		blockageMethod: z.enum(BLOCKAGE_METHODS).optional(),
-		speedUnit: z.enum(SPEED_UNITS),
-		configurations: z
-			.array(configurationSchema)
-			.min(1, { error: 'Add at least one configuration.' }),
-		speeds_mps: z.array(positive('a speed')).min(1, { error: 'Add at least one speed.' }),
-		yawAngles_deg: z
-			.array(z.number().min(-180).max(180))
-			.min(1, { error: 'Add at least one yaw angle.' }),
-		planes: z.array(planeSchema).min(1, { error: 'Add at least one measurement plane.' }),
-		dwellPerPoint_s: z.number().min(0).max(3600),
-		repeats: z.number().int().min(1).max(20)
+		...definitionShape
 	})
-	.superRefine((c, ctx) => {
-		const dupSpeed = duplicateIndex(c.speeds_mps);
-		if (dupSpeed >= 0)
-			ctx.addIssue({
-				code: 'custom',
-				path: ['speeds_mps'],
-				message: `The speed ${c.speeds_mps[dupSpeed]} m/s is listed twice.`
-			});
-		const dupYaw = duplicateIndex(c.yawAngles_deg);
-		if (dupYaw >= 0)
-			ctx.addIssue({
-				code: 'custom',
-				path: ['yawAngles_deg'],
-				message: `The yaw angle ${c.yawAngles_deg[dupYaw]}° is listed twice.`
-			});
-		if (duplicateIndex(c.configurations.map((x) => x.id)) >= 0)
-			ctx.addIssue({
-				code: 'custom',
-				path: ['configurations'],
-				message: 'Each configuration needs its own id.'
-			});
-		if (duplicateIndex(c.planes.map((x) => x.id)) >= 0)
-			ctx.addIssue({ code: 'custom', path: ['planes'], message: 'Each plane needs its own id.' });
-		if (c.configurations.filter((x) => x.baseline).length !== 1)
-			ctx.addIssue({
-				code: 'custom',
-				path: ['configurations'],
-				message: 'Mark exactly one configuration as the baseline.'
-			});
-		const points = matrixPointCount(c);
-		if (points > MAX_MATRIX_POINTS)
-			ctx.addIssue({
-				code: 'custom',
-				path: ['planes'],
-				message: `The matrix has ${points.toLocaleString('en-GB')} points; at most ${MAX_MATRIX_POINTS.toLocaleString('en-GB')} are allowed.`
-			});
-	});
+	.superRefine(checkDefinition);
 
 export type CampaignInput = z.infer<typeof campaignSchema>;
-/** What a campaign stores as its JSON definition: everything but its identity and links. */
-export type CampaignDefinition = Omit<
-	CampaignInput,
-	'name' | 'objective' | 'modelId' | 'facilityId'
->;
+export type CampaignDefinition = z.infer<typeof campaignDefinitionSchema>;
 
 export function matrixPointCount(
 	c: Pick<CampaignInput, 'configurations' | 'speeds_mps' | 'yawAngles_deg' | 'planes' | 'repeats'>

@@ -51,17 +51,13 @@ export function evaluateMatrixRequest(req: MatrixRequest) {
 	const findings = [
 		...(correction?.notes ?? []),
 		...(req.envelope
-			? envelopeFindings(
-					plan,
-					{
-						minSpeed_mps: req.envelope.minSpeed,
-						maxSpeed_mps: req.envelope.maxSpeed,
-						maxDynamicPressure_Pa: req.envelope.maxDynamicPressure,
-						yawMin_deg: req.envelope.yawMin_deg,
-						yawMax_deg: req.envelope.yawMax_deg
-					},
-					speeds
-				)
+			? envelopeFindings(plan.yawAngles_deg, speeds, {
+					minSpeed_mps: req.envelope.minSpeed,
+					maxSpeed_mps: req.envelope.maxSpeed,
+					maxDynamicPressure_Pa: req.envelope.maxDynamicPressure,
+					yawMin_deg: req.envelope.yawMin_deg,
+					yawMax_deg: req.envelope.yawMax_deg
+				})
 			: [])
 	];
 	const occupancy = req.timing
@@ -85,5 +81,3 @@ export function evaluateMatrixRequest(req: MatrixRequest) {
 		occupancy
 	};
 }
-
-export type MatrixEvaluation = ReturnType<typeof evaluateMatrixRequest>;

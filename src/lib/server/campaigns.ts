@@ -1,4 +1,5 @@
 import { desc, eq } from 'drizzle-orm';
+import { settingFindings } from '../calc';
 import type { SessionUser } from '../roles';
 import type { CampaignDefinition, CampaignInput } from '../schemas/campaign';
 import { canEditCampaign, canReadCampaign, readableCampaigns } from './access';
@@ -79,25 +80,15 @@ function split({ name, objective, modelId, facilityId, ...definition }: Campaign
 	return { name, objective, modelId, facilityId, definition };
 }
 
-/** Checks the campaign against the chosen facility; the first misfit names its field. */
+/**
+ * Refuses speeds and yaw angles the chosen facility cannot set, with the core's envelope
+ * message; q and Mach limits stay findings for the reviewer.
+ */
 function facilityMisfit(input: CampaignInput, f: Facility) {
-	const outside = input.speeds_mps.find((v) => v < f.minSpeed_mps || v > f.maxSpeed_mps);
-	if (outside !== undefined) {
-		return refuse(
-			'invalid',
-			`${outside} m/s is outside ${f.name}'s range of ${f.minSpeed_mps}–${f.maxSpeed_mps} m/s.`,
-			'speeds_mps'
-		);
-	}
-	const yaw = input.yawAngles_deg.find((a) => a < f.yawMin_deg || a > f.yawMax_deg);
-	if (yaw !== undefined) {
-		return refuse(
-			'invalid',
-			`Yaw ${yaw}° is outside ${f.name}'s turntable range of ${f.yawMin_deg}° to ${f.yawMax_deg}°.`,
-			'yawAngles_deg'
-		);
-	}
-	return null;
+	const misfit = settingFindings(input.speeds_mps, input.yawAngles_deg, f)[0];
+	if (!misfit) return null;
+	const field = misfit.code === 'yaw-outside-turntable' ? 'yawAngles_deg' : 'speeds_mps';
+	return refuse('invalid', `${f.name}: ${misfit.message}`, field);
 }
 
 function resolveLinks(db: Db, viewer: SessionUser, input: CampaignInput) {

@@ -1,6 +1,6 @@
 import { fixed, percent } from '$lib/format';
 import type { RunConditions } from '$lib/results/types';
-import { formatCompact } from '../pictures/geometry';
+import { formatCompact } from '../pictures/number-format';
 import { expanded, plusMinus } from './figures';
 
 /** A run's measured air and flow as written in every conditions table, uncertainties as U. */

@@ -3,7 +3,7 @@
  * centreline, y up from the floor. Grids may be unevenly spaced, so nothing here assumes a step.
  */
 import { contours } from 'd3-contour';
-import type { Point } from '../pictures/geometry';
+import type { Point } from '../pictures/section-shapes';
 
 /**
  * The span each probe stands for along one axis: halfway to its neighbours, and as far beyond

@@ -1,5 +1,6 @@
 import { superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
+import { settingFindings } from '$lib/calc';
 import { campaignSchema, type CampaignInput } from '$lib/schemas/campaign';
 import { saveCampaignForm } from '$lib/server/campaign-form';
 import { createCampaign } from '$lib/server/campaigns';
@@ -13,6 +14,11 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 	const models = listModelsFor(locals.db, user);
 	const facilities = listFacilities(locals.db);
 	const facility = facilities[0];
+	const startingSpeeds_mps = [20, 30, 40];
+	// The starting speeds the facility can set, by the core's envelope check.
+	const unreachable = new Set(
+		facility ? settingFindings(startingSpeeds_mps, [], facility).map((f) => f.speed_mps) : []
+	);
 	const start: CampaignInput = {
 		name: '',
 		objective: '',
@@ -24,7 +30,7 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 		reIndependenceThreshold: null,
 		speedUnit: 'm/s',
 		configurations: [{ id: 'base', label: 'Baseline', description: '', baseline: true }],
-		speeds_mps: [20, 30, 40].filter((v) => !facility || v <= facility.maxSpeed_mps),
+		speeds_mps: startingSpeeds_mps.filter((v) => !unreachable.has(v)),
 		yawAngles_deg: [0],
 		planes: [
 			{
