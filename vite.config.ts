@@ -25,7 +25,9 @@ export default defineConfig({
 				test: {
 					name: 'component',
 					environment: 'jsdom',
-					include: ['src/**/*.svelte.test.ts']
+					include: ['src/**/*.svelte.test.ts'],
+					// Unmounts each test's components afterwards (no vitest globals here to hook into).
+					setupFiles: ['@testing-library/svelte/vitest']
 				}
 			},
 			{

@@ -1,4 +1,5 @@
 import type { Finding, RunIdentity } from '../calc';
+import type { MeasuredConditions } from '../readings/types';
 
 /**
  * The reduced results of a campaign's approved revision, as the results pages, the CSV export
@@ -7,12 +8,8 @@ import type { Finding, RunIdentity } from '../calc';
  */
 
 /** A run's air and flow as measured, beside what the plan assumed. */
-export type RunConditions = {
-	referenceDynamicPressure_Pa: number;
-	airTemperature_K: number;
-	barometricPressure_Pa: number;
-	/** Null when the file gave none; the air is then taken as dry and a note says so. */
-	relativeHumidity: number | null;
+export type RunConditions = MeasuredConditions & {
+	/** Relative humidity is null when the file gave none; the air is then taken as dry and a note says so. */
 	density_kgm3: number;
 	/** V = √(2q/ρ) from the reference dynamic pressure. */
 	measuredSpeed_mps: number;
