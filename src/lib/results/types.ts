@@ -18,7 +18,13 @@ export type RunConditions = MeasuredConditions & {
 	plannedSpeed_mps: number;
 	plannedRe: number;
 	plannedMach: number;
-	uncertainty: { density_kgm3: number; measuredSpeed_mps: number; achievedRe: number };
+	uncertainty: {
+		/** The facility's reference-q calibration, a fraction of this run's q. */
+		referenceDynamicPressure_Pa: number;
+		density_kgm3: number;
+		measuredSpeed_mps: number;
+		achievedRe: number;
+	};
 };
 
 /** One probe position of a run: its readings reduced to coefficients. */
@@ -124,6 +130,8 @@ export type ReynoldsSweepResult = {
 	planeId: string;
 	points: { re: number; value: number; uncertainty: number; speed_mps: number }[];
 	relativeChanges: number[];
+	/** For each relative change, whether it exceeds the tolerance. */
+	overTolerance: boolean[];
 	tolerance: number;
 	independentFromRe: number | null;
 	notes: Finding[];

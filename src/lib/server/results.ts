@@ -77,7 +77,7 @@ export function reductionInput(
 			baseline: x.baseline
 		})),
 		planeLabels: Object.fromEntries(definition.planes.map((p) => [p.id, p.label || p.id])),
-		modelReferenceLength_m: model.referenceLength_m * scale,
+		modelReferenceLength_m: approved.plan.modelReferenceLength_m,
 		referenceArea_m2: model.fullScaleFrontalArea_m2 * scale * scale,
 		readings: readingColumns(db, approved.revisionId),
 		conditions,

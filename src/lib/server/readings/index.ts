@@ -11,7 +11,7 @@ import { readingsTemplateCsv } from './template';
 
 export { receiveReadings } from './receive';
 export { approvedLayout } from './layout';
-export type { ReadingsFile, ReadingsRefusal } from './receive';
+export type { ReadingsFile, ReadingsRefusal, ReceiveProgress } from './receive';
 export { RUN_CONDITION_TOLERANCES } from './run-conditions';
 export { MAX_PROBLEMS_SHOWN } from './problems';
 export type {
