@@ -9,12 +9,10 @@ export function runConditions(
 	lengthRef_m: number,
 	instrument: InstrumentUncertainties
 ): RunConditions {
+	// The reference q's uncertainty is a fraction of it (the facility's calibration).
+	const uQ_Pa = instrument.referenceQUncertainty * c.referenceDynamicPressure_Pa;
 	const inputs = [
-		{
-			name: 'q',
-			value: c.referenceDynamicPressure_Pa,
-			standardUncertainty: instrument.referenceQUncertainty * c.referenceDynamicPressure_Pa
-		},
+		{ name: 'q', value: c.referenceDynamicPressure_Pa, standardUncertainty: uQ_Pa },
 		{
 			name: 'T',
 			value: c.airTemperature_K,
@@ -50,6 +48,7 @@ export function runConditions(
 		plannedRe: planned.modelRe,
 		plannedMach: planned.mach,
 		uncertainty: {
+			referenceDynamicPressure_Pa: uQ_Pa,
 			density_kgm3: density.standardUncertainty,
 			measuredSpeed_mps: measured.standardUncertainty,
 			achievedRe: achievedRe.standardUncertainty

@@ -1,13 +1,9 @@
 import type { MatrixPlan, RunLayout } from '../calc';
+import type { MeasuredConditions } from '../readings/types';
 import type { ReadingColumns } from './run-grids';
 import type { CampaignResults } from './types';
 
-export type MeasuredConditions = {
-	referenceDynamicPressure_Pa: number;
-	airTemperature_K: number;
-	barometricPressure_Pa: number;
-	relativeHumidity: number | null;
-};
+export type { MeasuredConditions };
 
 export type InstrumentUncertainties = CampaignResults['instrumentUncertainties'];
 

@@ -1,5 +1,6 @@
 import { linearFit, meanWithTypeA, reynoldsSweep, type Finding } from '../calc';
 import { finding } from '../calc/findings';
+import { groupBy } from './grouping';
 import type { DistanceTrend, PlaneRunResult, ReynoldsSweepResult } from './types';
 
 /** Repeats of one traverse combine as a mean with its Type A uncertainty beside the propagated one. */
@@ -10,26 +11,15 @@ function combineRepeats(values: { value: number; uncertainty: number }[]) {
 	return { value: typeA.mean, uncertainty: Math.hypot(typeA.standardUncertainty, typeB) };
 }
 
-function groupBy<T>(items: T[], key: (t: T) => string): Map<string, T[]> {
-	const groups = new Map<string, T[]>();
-	for (const item of items) {
-		const k = key(item);
-		const list = groups.get(k);
-		if (list) list.push(item);
-		else groups.set(k, [item]);
-	}
-	return groups;
-}
-
 export function distanceTrends(runs: PlaneRunResult[]): DistanceTrend[] {
 	const withAverage = runs.filter((r) => r.averageCp !== null);
 	const trends: DistanceTrend[] = [];
 	for (const group of groupBy(
 		withAverage,
 		(r) => `${r.configurationId}|${r.yaw_deg}|${r.speed_mps}`
-	).values()) {
+	)) {
 		const first = group[0]!;
-		const points = [...groupBy(group, (r) => r.planeId).values()]
+		const points = groupBy(group, (r) => r.planeId)
 			.map((repeats) => {
 				const average = combineRepeats(
 					repeats.map((r) => ({ value: r.averageCp!, uncertainty: r.uncertainty.averageCp ?? 0 }))
@@ -77,11 +67,8 @@ export function distanceTrends(runs: PlaneRunResult[]): DistanceTrend[] {
 export function sweeps(runs: PlaneRunResult[], tolerance: number): ReynoldsSweepResult[] {
 	const withDrag = runs.filter((r) => r.wake && r.conditions);
 	const result: ReynoldsSweepResult[] = [];
-	for (const group of groupBy(
-		withDrag,
-		(r) => `${r.configurationId}|${r.yaw_deg}|${r.planeId}`
-	).values()) {
-		const points = [...groupBy(group, (r) => String(r.speed_mps)).values()]
+	for (const group of groupBy(withDrag, (r) => `${r.configurationId}|${r.yaw_deg}|${r.planeId}`)) {
+		const points = groupBy(group, (r) => String(r.speed_mps))
 			.map((repeats) => {
 				const drag = combineRepeats(
 					repeats.map((r) => ({ value: r.wake!.dragCoefficient, uncertainty: r.wake!.uncertainty }))
@@ -114,6 +101,7 @@ export function sweeps(runs: PlaneRunResult[], tolerance: number): ReynoldsSweep
 			planeId: first.planeId,
 			points,
 			relativeChanges: sweep.relativeChanges,
+			overTolerance: sweep.relativeChanges.map((change) => Math.abs(change) > tolerance),
 			tolerance,
 			independentFromRe: sweep.independentFromRe,
 			notes

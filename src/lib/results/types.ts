@@ -1,4 +1,5 @@
 import type { Finding, RunIdentity } from '../calc';
+import type { MeasuredConditions } from '../readings/types';
 
 /**
  * The reduced results of a campaign's approved revision, as the results pages, the CSV export
@@ -7,12 +8,8 @@ import type { Finding, RunIdentity } from '../calc';
  */
 
 /** A run's air and flow as measured, beside what the plan assumed. */
-export type RunConditions = {
-	referenceDynamicPressure_Pa: number;
-	airTemperature_K: number;
-	barometricPressure_Pa: number;
-	/** Null when the file gave none; the air is then taken as dry and a note says so. */
-	relativeHumidity: number | null;
+export type RunConditions = MeasuredConditions & {
+	/** Relative humidity is null when the file gave none; the air is then taken as dry and a note says so. */
 	density_kgm3: number;
 	/** V = √(2q/ρ) from the reference dynamic pressure. */
 	measuredSpeed_mps: number;
@@ -21,7 +18,13 @@ export type RunConditions = {
 	plannedSpeed_mps: number;
 	plannedRe: number;
 	plannedMach: number;
-	uncertainty: { density_kgm3: number; measuredSpeed_mps: number; achievedRe: number };
+	uncertainty: {
+		/** The facility's reference-q calibration, a fraction of this run's q. */
+		referenceDynamicPressure_Pa: number;
+		density_kgm3: number;
+		measuredSpeed_mps: number;
+		achievedRe: number;
+	};
 };
 
 /** One probe position of a run: its readings reduced to coefficients. */
@@ -127,6 +130,8 @@ export type ReynoldsSweepResult = {
 	planeId: string;
 	points: { re: number; value: number; uncertainty: number; speed_mps: number }[];
 	relativeChanges: number[];
+	/** For each relative change, whether it exceeds the tolerance. */
+	overTolerance: boolean[];
 	tolerance: number;
 	independentFromRe: number | null;
 	notes: Finding[];

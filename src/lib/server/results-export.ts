@@ -60,29 +60,41 @@ function runLines(r: PlaneRunResult): Line[] {
 			u_wake_drag_coefficient: r.wake?.uncertainty
 		}
 	];
-	r.rowAverageCp.forEach((cp, i) =>
-		lines.push({
-			level: 'row',
-			...identity,
-			row: i + 1,
-			y_m: r.y_m[i],
-			Cp: cp,
-			u_Cp: r.uncertainty.rowAverageCp[i],
-			delta_Cp_vs_baseline: d?.rowAverages[i],
-			u_delta_Cp: d?.uncertainty.rowAverages[i]
-		})
+	const averages = (
+		level: 'row' | 'column',
+		positions: number[],
+		cp: (number | null)[],
+		u: (number | null)[],
+		delta: (number | null)[] | undefined,
+		uDelta: (number | null)[] | undefined
+	) =>
+		cp.forEach((value, k) =>
+			lines.push({
+				level,
+				...identity,
+				[level]: k + 1,
+				[level === 'row' ? 'y_m' : 'z_m']: positions[k],
+				Cp: value,
+				u_Cp: u[k],
+				delta_Cp_vs_baseline: delta?.[k],
+				u_delta_Cp: uDelta?.[k]
+			})
+		);
+	averages(
+		'row',
+		r.y_m,
+		r.rowAverageCp,
+		r.uncertainty.rowAverageCp,
+		d?.rowAverages,
+		d?.uncertainty.rowAverages
 	);
-	r.columnAverageCp.forEach((cp, j) =>
-		lines.push({
-			level: 'column',
-			...identity,
-			column: j + 1,
-			z_m: r.z_m[j],
-			Cp: cp,
-			u_Cp: r.uncertainty.columnAverageCp[j],
-			delta_Cp_vs_baseline: d?.columnAverages[j],
-			u_delta_Cp: d?.uncertainty.columnAverages[j]
-		})
+	averages(
+		'column',
+		r.z_m,
+		r.columnAverageCp,
+		r.uncertainty.columnAverageCp,
+		d?.columnAverages,
+		d?.uncertainty.columnAverages
 	);
 	for (const row of r.points)
 		for (const p of row)

@@ -1,18 +1,13 @@
 import { eq } from 'drizzle-orm';
+import type { MeasuredConditions } from '../readings/types';
 import type { CampaignResults } from '../results/types';
-import {
-	KIND_INDEX,
-	reduceCampaign,
-	type MeasuredConditions,
-	type ReductionInput
-} from '../results/reduce';
+import { KIND_INDEX, reduceCampaign, type ReductionInput } from '../results/reduce';
 import type { SessionUser } from '../roles';
-import { canReadCampaign } from './access';
 import type { Db } from './db/open';
-import { campaign, facility } from './db/schema';
+import { facility } from './db/schema';
 import { refuse, type Outcome } from './outcome';
-import { approvedLayout } from './readings/layout';
-import { currentConditions } from './readings/coverage';
+import { currentConditions } from './readings/current';
+import { approvedLayoutOf, readableCampaign } from './readings/layout';
 
 /** Re-independence tolerance when none is asked for: 2 % (common practice, no single source). */
 export const DEFAULT_SWEEP_TOLERANCE = 0.02;
@@ -49,11 +44,14 @@ export function reductionInput(
 	campaignId: string,
 	options: ResultsOptions = {}
 ): Outcome<{ input: ReductionInput }> {
-	const c = db.select().from(campaign).where(eq(campaign.id, campaignId)).get();
-	if (!c || !canReadCampaign(viewer, c)) return refuse('not-found', 'No such campaign.');
-	if (!c.approvedRevisionId)
-		return refuse('conflict', 'The campaign has no approved revision, so no readings to reduce.');
-	const approved = approvedLayout(db, c.approvedRevisionId);
+	const found = readableCampaign(db, viewer, campaignId);
+	if (!found.ok) return found;
+	const c = found.campaign;
+	const approved = approvedLayoutOf(
+		db,
+		c,
+		'The campaign has no approved revision, so no readings to reduce.'
+	);
 	if (!approved.ok) return approved;
 	const { definition, model } = approved.snapshot;
 	const baseline =
@@ -67,7 +65,7 @@ export function reductionInput(
 	const f = db.select().from(facility).where(eq(facility.id, c.facilityId)).get()!;
 	const scale = 1 / model.scaleDenominator;
 	const conditions = new Map<number, MeasuredConditions>(
-		currentConditions(db, c.approvedRevisionId).map((x) => [x.run, x])
+		currentConditions(db, approved.revisionId).map((x) => [x.run, x])
 	);
 	const input: ReductionInput = {
 		revision: approved.revisionNumber,
@@ -79,9 +77,9 @@ export function reductionInput(
 			baseline: x.baseline
 		})),
 		planeLabels: Object.fromEntries(definition.planes.map((p) => [p.id, p.label || p.id])),
-		modelReferenceLength_m: model.referenceLength_m * scale,
+		modelReferenceLength_m: approved.plan.modelReferenceLength_m,
 		referenceArea_m2: model.fullScaleFrontalArea_m2 * scale * scale,
-		readings: readingColumns(db, c.approvedRevisionId),
+		readings: readingColumns(db, approved.revisionId),
 		conditions,
 		instrument: {
 			readingUncertainty_Pa: f.readingUncertainty_Pa,

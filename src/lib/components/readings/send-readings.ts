@@ -1,7 +1,8 @@
+import type { ReceivePhase } from '$lib/readings/types';
+
 /** What the page shows while a readings file travels and is processed. */
 export type UploadStage =
-	| { stage: 'sending'; fraction: number }
-	| { stage: 'parse' | 'check' | 'store'; done: number; total: number };
+	{ stage: 'sending'; fraction: number } | { stage: ReceivePhase; done: number; total: number };
 
 export type UploadResult = { status: number; body: Record<string, unknown> };
 

@@ -25,15 +25,29 @@ export function decimalsFor(standard: number | null | undefined, decimals = CP_D
 	return Math.max(decimals, Math.min(MAX_DECIMALS, needed));
 }
 
+/** A value and its U = k·u for two table cells, both to the decimals U needs; U "—" without one. */
+export function valueAndExpanded(
+	value: number,
+	standard: number | null | undefined,
+	decimals = CP_DECIMALS
+): { value: string; expanded: string } {
+	const d = decimalsFor(standard, decimals);
+	return {
+		value: fixed(value, d),
+		expanded: standard === null || standard === undefined ? '—' : fixed(expanded(standard), d)
+	};
+}
+
 /** "value ± U" with U = k·u; the value alone where there is no uncertainty to give. */
 export function plusMinus(
 	value: number,
 	standard: number | null | undefined,
 	decimals = CP_DECIMALS
 ): string {
-	if (standard === null || standard === undefined) return fixed(value, decimals);
-	const d = decimalsFor(standard, decimals);
-	return `${fixed(value, d)} ± ${fixed(expanded(standard), d)}`;
+	const shown = valueAndExpanded(value, standard, decimals);
+	return standard === null || standard === undefined
+		? shown.value
+		: `${shown.value} ± ${shown.expanded}`;
 }
 
 const trimmedFormats = new Map<number, Intl.NumberFormat>();

@@ -49,6 +49,41 @@ export function differenceCells(run: PlaneRunResult): MapCell[][] | null {
 	);
 }
 
+/** The plane, row and column averages drawn beside a map, with their standard uncertainties. */
+export type MapAverages = {
+	plane: number | null;
+	planeU: number | null;
+	rows: (number | null)[];
+	columns: (number | null)[];
+	rowsU: (number | null)[];
+	columnsU: (number | null)[];
+};
+
+export function cpAverages(run: PlaneRunResult): MapAverages {
+	return {
+		plane: run.averageCp,
+		planeU: run.uncertainty.averageCp,
+		rows: run.rowAverageCp,
+		columns: run.columnAverageCp,
+		rowsU: run.uncertainty.rowAverageCp,
+		columnsU: run.uncertainty.columnAverageCp
+	};
+}
+
+/** The averages of the variant − baseline map; null for the baseline itself. */
+export function differenceAverages(run: PlaneRunResult): MapAverages | null {
+	const d = run.difference;
+	if (!d) return null;
+	return {
+		plane: d.average,
+		planeU: d.uncertainty.average,
+		rows: d.rowAverages,
+		columns: d.columnAverages,
+		rowsU: d.uncertainty.rowAverages,
+		columnsU: d.uncertainty.columnAverages
+	};
+}
+
 /** What a cell says to a screen reader and in its hover box: where it is and what was read. */
 export function cellText(cell: MapCell, symbol: string): string {
 	const where = `Row ${cell.row}, column ${cell.column}, y ${metres(cell.y_m)}, z ${metres(cell.z_m)}`;

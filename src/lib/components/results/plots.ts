@@ -124,6 +124,13 @@ export function fitLines(trends: DistanceTrend[], styles: SeriesStyles): PlotLin
 	});
 }
 
+/** A run's row averages with their heights, or column averages with their lateral positions. */
+function averagesAlong(r: PlaneRunResult, along: 'rows' | 'columns') {
+	return along === 'rows'
+		? { positions: r.y_m, averages: r.rowAverageCp, u: r.uncertainty.rowAverageCp }
+		: { positions: r.z_m, averages: r.columnAverageCp, u: r.uncertainty.columnAverageCp };
+}
+
 const runLabel = (r: PlaneRunResult) =>
 	`${r.configurationLabel} · ${speedText(r.speed_mps)} · repeat ${r.repeat}`;
 
@@ -134,9 +141,7 @@ export function profileSeries(
 	along: 'rows' | 'columns'
 ): PlotSeries[] {
 	return runs.map((r) => {
-		const positions = along === 'rows' ? r.y_m : r.z_m;
-		const averages = along === 'rows' ? r.rowAverageCp : r.columnAverageCp;
-		const u = along === 'rows' ? r.uncertainty.rowAverageCp : r.uncertainty.columnAverageCp;
+		const { positions, averages, u } = averagesAlong(r, along);
 		return {
 			key: `${r.run}`,
 			label: runLabel(r),
@@ -166,9 +171,7 @@ export function distanceProfileSeries(
 ): PlotSeries[] {
 	const lines = new Map<number, { position: number; points: PlotPoint[] }>();
 	for (const r of runs) {
-		const positions = along === 'rows' ? r.y_m : r.z_m;
-		const averages = along === 'rows' ? r.rowAverageCp : r.columnAverageCp;
-		const u = along === 'rows' ? r.uncertainty.rowAverageCp : r.uncertainty.columnAverageCp;
+		const { positions, averages, u } = averagesAlong(r, along);
 		positions.forEach((position, k) => {
 			const y = averages[k];
 			if (y === null || y === undefined) return;

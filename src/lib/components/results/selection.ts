@@ -3,6 +3,7 @@
  * user picked is kept apart from them, so that a choice the data no longer offers falls back to a
  * sensible one instead of showing nothing.
  */
+import { groupBy } from '$lib/results/grouping';
 import type { PlaneRunResult } from '$lib/results/types';
 
 export type Choices = {
@@ -23,7 +24,7 @@ const sortedUnique = (values: number[]) => [...new Set(values)].sort((a, b) => a
 
 export function choicesOf(runs: PlaneRunResult[]): Choices {
 	return {
-		configurations: gather(runs, (r) => r.configurationId).map(([r]) => ({
+		configurations: groupBy(runs, (r) => r.configurationId).map(([r]) => ({
 			id: r.configurationId,
 			label: r.configurationLabel,
 			baseline: r.baseline
@@ -63,17 +64,6 @@ export function selectedRuns(runs: PlaneRunResult[], s: Selection): PlaneRunResu
 	);
 }
 
-/** Runs gathered by a key, groups in the order their first run comes. */
-export function gather(runs: PlaneRunResult[], key: (r: PlaneRunResult) => string) {
-	const groups = new Map<string, [PlaneRunResult, ...PlaneRunResult[]]>();
-	for (const r of runs) {
-		const group = groups.get(key(r));
-		if (group) group.push(r);
-		else groups.set(key(r), [r]);
-	}
-	return [...groups.values()];
-}
-
 export type PlaneGroup = {
 	planeId: string;
 	planeLabel: string;
@@ -83,7 +73,7 @@ export type PlaneGroup = {
 
 /** Runs gathered by traverse plane, nearest the model first. */
 export function byPlane(runs: PlaneRunResult[]): PlaneGroup[] {
-	return gather(runs, (r) => r.planeId)
+	return groupBy(runs, (r) => r.planeId)
 		.map((group) => ({
 			planeId: group[0].planeId,
 			planeLabel: group[0].planeLabel,
@@ -97,7 +87,7 @@ export type SettingGroup = { yaw_deg: number; speed_mps: number; runs: PlaneRunR
 
 /** Runs gathered by yaw and speed, in that order. */
 export function byYawAndSpeed(runs: PlaneRunResult[]): SettingGroup[] {
-	return gather(runs, (r) => `${r.yaw_deg}|${r.speed_mps}`)
+	return groupBy(runs, (r) => `${r.yaw_deg}|${r.speed_mps}`)
 		.map((group) => ({ yaw_deg: group[0].yaw_deg, speed_mps: group[0].speed_mps, runs: group }))
 		.sort((a, b) => a.yaw_deg - b.yaw_deg || a.speed_mps - b.speed_mps);
 }

@@ -1,8 +1,6 @@
 import Papa from 'papaparse';
+import type { ReadingProblem } from '../../readings/types';
 import { READINGS_MAX_ROWS, readingsBodySchema } from '../../schemas/readings';
-
-/** One thing wrong with a readings file: its row (1 = the header line), column and reason. */
-export type ReadingProblem = { row: number | null; column: string | null; reason: string };
 
 /** The file as lower-case header names and rows of cells in the header's order. */
 export type ReadingsTable = {

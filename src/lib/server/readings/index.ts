@@ -1,32 +1,37 @@
 import { and, eq } from 'drizzle-orm';
 import type { SessionUser } from '../../roles';
-import { canReadCampaign, canUploadReadings } from '../access';
+import { canUploadReadings } from '../access';
 import type { Db } from '../db/open';
-import { campaign, readingsUpload } from '../db/schema';
-import { refuse, type Outcome } from '../outcome';
-import { currentConditions, currentReadings, readingsCoverage, readingsUploads } from './coverage';
-import { approvedLayout, type ApprovedLayout } from './layout';
+import { readingsUpload } from '../db/schema';
+import type { Outcome } from '../outcome';
+import { readingsCoverage } from './coverage';
+import { currentConditions, currentReadings, receivedFiles } from './current';
+import { approvedLayoutOf, readableCampaign } from './layout';
 import { readingsTemplateCsv } from './template';
 
 export { receiveReadings } from './receive';
 export { approvedLayout } from './layout';
-export type { ReadingsFile, ReadingsRefusal, ReceivePhase, UploadSummary } from './receive';
-export { RUN_CONDITION_TOLERANCES, MAX_PROBLEMS_SHOWN } from './check';
-export type { ReadingProblem } from './file';
-export type { ReadingsCoverage, RunCoverage } from './coverage';
+export type { ReadingsFile, ReadingsRefusal, ReceiveProgress } from './receive';
+export { RUN_CONDITION_TOLERANCES } from './run-conditions';
+export { MAX_PROBLEMS_SHOWN } from './problems';
+export type {
+	ReadingProblem,
+	ReadingsCoverage,
+	ReceivePhase,
+	RunCoverage,
+	UploadSummary
+} from '../../readings/types';
 
 /** The campaign's approved matrix if the viewer may read the campaign and it has one. */
-function readableApproved(
-	db: Db,
-	viewer: SessionUser,
-	campaignId: string
-): Outcome<{ campaign: typeof campaign.$inferSelect; approved: ApprovedLayout }> {
-	const c = db.select().from(campaign).where(eq(campaign.id, campaignId)).get();
-	if (!c || !canReadCampaign(viewer, c)) return refuse('not-found', 'No such campaign.');
-	if (!c.approvedRevisionId)
-		return refuse('conflict', 'The campaign has no approved revision yet, so no readings.');
-	const approved = approvedLayout(db, c.approvedRevisionId);
-	return approved.ok ? { ok: true, campaign: c, approved } : approved;
+function readableApproved(db: Db, viewer: SessionUser, campaignId: string) {
+	const found = readableCampaign(db, viewer, campaignId);
+	if (!found.ok) return found;
+	const approved = approvedLayoutOf(
+		db,
+		found.campaign,
+		'The campaign has no approved revision yet, so no readings.'
+	);
+	return approved.ok ? { ok: true as const, campaign: found.campaign, approved } : approved;
 }
 
 /** What the campaign page shows of its readings; null before any revision is approved. */
@@ -36,7 +41,7 @@ export function readingsOverview(db: Db, viewer: SessionUser, campaignId: string
 	return {
 		revisionNumber: found.approved.revisionNumber,
 		coverage: readingsCoverage(db, found.approved),
-		uploads: readingsUploads(db, campaignId),
+		uploads: receivedFiles(db, campaignId),
 		canUpload: canUploadReadings(viewer, found.campaign)
 	};
 }
@@ -85,8 +90,7 @@ export function readingsUploadFor(
 	campaignId: string,
 	uploadId: string
 ) {
-	const c = db.select().from(campaign).where(eq(campaign.id, campaignId)).get();
-	if (!c || !canReadCampaign(viewer, c)) return undefined;
+	if (!readableCampaign(db, viewer, campaignId).ok) return undefined;
 	return db
 		.select()
 		.from(readingsUpload)

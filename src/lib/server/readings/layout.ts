@@ -2,9 +2,37 @@ import { eq } from 'drizzle-orm';
 import { CalcInputError, runLayout, type MatrixPlan, type RunLayout } from '../../calc';
 import { campaignPlan } from '../../campaign/plan';
 import type { RevisionSnapshot } from '../../review/types';
+import type { SessionUser } from '../../roles';
+import { canReadCampaign } from '../access';
 import type { DbOrTx } from '../db/open';
-import { campaignRevision } from '../db/schema';
-import { refuse, type Refusal } from '../outcome';
+import { campaign, campaignRevision } from '../db/schema';
+import { refuse, type Outcome, type Refusal } from '../outcome';
+
+type Campaign = typeof campaign.$inferSelect;
+
+/** The campaign if the viewer may read it; one not to be read is as good as missing. */
+export function readableCampaign(
+	db: DbOrTx,
+	viewer: SessionUser,
+	campaignId: string
+): Outcome<{ campaign: Campaign }> {
+	const c = db.select().from(campaign).where(eq(campaign.id, campaignId)).get();
+	if (!c || !canReadCampaign(viewer, c)) return refuse('not-found', 'No such campaign.');
+	return { ok: true, campaign: c };
+}
+
+/**
+ * The approved matrix readings attach to, or a conflict saying `withoutApproval` while the
+ * campaign has no approved revision.
+ */
+export function approvedLayoutOf(
+	db: DbOrTx,
+	c: Campaign,
+	withoutApproval: string
+): ApprovedLayout | Refusal {
+	if (!c.approvedRevisionId) return refuse('conflict', withoutApproval);
+	return approvedLayout(db, c.approvedRevisionId);
+}
 
 export type ApprovedLayout = {
 	ok: true;

@@ -8,9 +8,15 @@ import {
 	readingsListing,
 	readingsOverview,
 	receiveReadings,
-	type ReadingsRefusal,
-	type ReceivePhase
+	type ReceiveProgress
 } from '$lib/server/readings';
+import {
+	declaredMediaType,
+	progressStream,
+	readingsRefusalAnswer,
+	sentFileName,
+	type ApiAnswer
+} from '$lib/server/readings/api-answer';
 import type { RequestHandler } from './$types';
 
 const pageQuery = z.object({
@@ -30,21 +36,6 @@ export const GET: RequestHandler = ({ locals, params, url }) => {
 	return json(body);
 };
 
-const MEDIA_TYPES = {
-	'text/csv': 'text/csv',
-	'text/plain': 'text/csv',
-	'application/json': 'application/json'
-} as const;
-
-function refusalBody(refusal: ReadingsRefusal): { status: number; body: unknown } {
-	const response = refusalResponse(refusal);
-	const { ok: _, code, message, field: __, ...details } = refusal;
-	return {
-		status: response.status,
-		body: { error: { code: code === 'invalid' ? 'invalid-readings' : code, message, ...details } }
-	};
-}
-
 /**
  * Takes a readings file (CSV, or JSON with the same fields) for the approved revision. With
  * `Accept: application/x-ndjson` the answer streams progress lines and ends with the result,
@@ -52,8 +43,7 @@ function refusalBody(refusal: ReadingsRefusal): { status: number; body: unknown 
  */
 export const POST: RequestHandler = async ({ locals, params, request, url }) => {
 	const user = requireUser(locals);
-	const declared = (request.headers.get('content-type') ?? '').split(';')[0]!.trim().toLowerCase();
-	const mediaType = MEDIA_TYPES[declared as keyof typeof MEDIA_TYPES];
+	const mediaType = declaredMediaType(request.headers.get('content-type'));
 	if (!mediaType)
 		return apiError(
 			415,
@@ -62,23 +52,19 @@ export const POST: RequestHandler = async ({ locals, params, request, url }) => 
 		);
 	const bytes = await readBody(request, READINGS_MAX_BYTES);
 	if (!bytes) return tooLarge(READINGS_MAX_BYTES);
-	const named = decodeURIComponent(request.headers.get('x-file-name') ?? '').trim();
 	const file = {
-		fileName: (named || (mediaType === 'text/csv' ? 'readings.csv' : 'readings.json')).slice(
-			0,
-			200
-		),
+		fileName: sentFileName(request.headers.get('x-file-name'), mediaType),
 		mediaType,
 		bytes,
 		channel: locals.apiToken ? ('api' as const) : ('page' as const)
 	};
 	const replace = ['true', '1'].includes(url.searchParams.get('replace') ?? '');
-	const run = async (progress?: (phase: ReceivePhase, done: number, total: number) => void) => {
+	const run = async (progress?: ReceiveProgress): Promise<ApiAnswer> => {
 		const outcome = await receiveReadings(locals.db, attachmentStore(), user, params.id, file, {
 			replace,
 			progress
 		});
-		if (!outcome.ok) return refusalBody(outcome);
+		if (!outcome.ok) return readingsRefusalAnswer(outcome);
 		const { ok: _, ...upload } = outcome;
 		return {
 			status: 201,
@@ -90,28 +76,5 @@ export const POST: RequestHandler = async ({ locals, params, request, url }) => 
 		const { status, body } = await run();
 		return json(body, { status });
 	}
-	const encoder = new TextEncoder();
-	const stream = new ReadableStream({
-		async start(controller) {
-			const send = (line: unknown) =>
-				controller.enqueue(encoder.encode(JSON.stringify(line) + '\n'));
-			try {
-				send({
-					type: 'result',
-					...(await run((phase, done, total) => send({ type: 'progress', phase, done, total })))
-				});
-			} catch (error) {
-				console.error(error);
-				send({
-					type: 'result',
-					status: 500,
-					body: { error: { code: 'server-error', message: 'Something went wrong on the server.' } }
-				});
-			}
-			controller.close();
-		}
-	});
-	return new Response(stream, {
-		headers: { 'content-type': 'application/x-ndjson', 'cache-control': 'no-store' }
-	});
+	return progressStream(run);
 };
