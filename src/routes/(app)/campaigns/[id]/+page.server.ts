@@ -1,6 +1,6 @@
 import { error, fail, redirect } from '@sveltejs/kit';
 import { CalcInputError } from '$lib/calc';
-import { canEditCampaign } from '$lib/server/access';
+import { canEditCampaign, canUploadReadings } from '$lib/server/access';
 import { campaignSlots } from '$lib/server/bookings';
 import { figuresOf } from '$lib/server/campaign-export';
 import { deleteCampaign, getCampaignFor } from '$lib/server/campaigns';
@@ -66,6 +66,12 @@ export const actions: Actions = {
 	/** The upload form without JavaScript; with it, the page posts to the API and shows progress. */
 	readings: async ({ locals, params, request }) => {
 		const user = requireUser(locals);
+		const found = getCampaignFor(locals.db, user, params.id);
+		if (!found) error(404, { message: 'No such campaign.' });
+		if (!canUploadReadings(user, found))
+			return fail(403, {
+				readingsAnswer: { message: 'You cannot send readings for this campaign.' }
+			});
 		const form = await request.formData().catch(() => null);
 		const file = form?.get('file');
 		if (!(file instanceof File) || file.size === 0)

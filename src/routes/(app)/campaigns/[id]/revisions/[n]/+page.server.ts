@@ -4,9 +4,9 @@ import { zod4 } from 'sveltekit-superforms/adapters';
 import { diffRevisions } from '$lib/review/diff';
 import { decisionSchema } from '$lib/schemas/review';
 import { getCampaignFor } from '$lib/server/campaigns';
-import { requireRole, requireUser } from '$lib/server/guards';
+import { requirePermission, requireUser } from '$lib/server/guards';
 import { STATUS_OF_REFUSAL } from '$lib/server/outcome';
-import { decideRevision, getRevision } from '$lib/server/review';
+import { decideRevision, decisionAccess, getRevision } from '$lib/server/review';
 import { availableActions } from '$lib/workflow';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -48,7 +48,9 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 
 export const actions: Actions = {
 	decide: async ({ locals, params, request, url }) => {
-		const user = requireRole(locals, 'reviewer');
+		const user = requirePermission(locals, 'decide-campaigns');
+		const allowed = decisionAccess(locals.db, user, params.id);
+		if (!allowed.ok) error(STATUS_OF_REFUSAL[allowed.code], { message: allowed.message });
 		const form = await superValidate(request, zod4(decisionSchema));
 		if (!form.valid) return fail(400, { form });
 		const decided = decideRevision(locals.db, user, params.id, form.data, url.origin);
