@@ -116,7 +116,7 @@ describe('form actions authorize before they validate the form', () => {
 	it('refuses a decision form on an unseen campaign 404', async () => {
 		const { db, w, draftId } = world();
 		const status = await postForm(
-			revisionPage.actions.decide,
+			revisionPage.actions.decide!,
 			db,
 			w.reviewer,
 			{ id: draftId, n: '1' },
@@ -128,7 +128,7 @@ describe('form actions authorize before they validate the form', () => {
 	it('refuses moving a slot that is not on this facility 404, with nonsense times', async () => {
 		const { db, w } = world();
 		const status = await postForm(
-			calendarPage.actions.move,
+			calendarPage.actions.move!,
 			db,
 			w.operator,
 			{ id: w.tunnel },
@@ -140,7 +140,7 @@ describe('form actions authorize before they validate the form', () => {
 	it('refuses editing another team’s model 404 before reading its fields', async () => {
 		const { db, w } = world();
 		const status = await postForm(
-			modelEditPage.actions.default,
+			modelEditPage.actions.default!,
 			db,
 			w.aeroB,
 			{ id: w.modelA },

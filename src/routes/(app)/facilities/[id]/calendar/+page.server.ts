@@ -27,7 +27,7 @@ import {
 } from '$lib/server/bookings';
 import { getFacility } from '$lib/server/facilities';
 import { requirePermission, requireUser } from '$lib/server/guards';
-import { STATUS_OF_REFUSAL, type Refusal } from '$lib/server/outcome';
+import { refuse, STATUS_OF_REFUSAL, type Outcome } from '$lib/server/outcome';
 import type { Actions, PageServerLoad } from './$types';
 
 /** Each campaign's booking form has its own id, so a refusal lands in that campaign's form. */
@@ -93,9 +93,40 @@ function bookersFacility(locals: App.Locals, facilityId: string) {
 	return { user, facility };
 }
 
-/** A refusal at its field where the form has one, else for the form as a whole. */
-function refusalField<K extends string>(refusal: Refusal, fields: readonly K[]): K | '' {
-	return fields.find((f) => f === refusal.field) ?? '';
+type LocalSlotForm = SuperValidated<{ start: string; end: string }>;
+
+/**
+ * Answers a valid slot form: its local times become instants in the facility's zone, `save`
+ * takes them, and a refusal lands at its field (else on the form), success as `done`.
+ */
+function saveSlotForm(
+	form: LocalSlotForm,
+	timeZone: string,
+	save: (slot: { start: Date; end: Date }) => Outcome<unknown>,
+	done: string
+) {
+	const slot = localSlotToInstants(form.data, timeZone);
+	if (!slot) return setError(form, 'start', 'Give a date and time.');
+	const saved = save(slot);
+	if (!saved.ok) {
+		const field = saved.field === 'start' || saved.field === 'end' ? saved.field : '';
+		return setError(form, field, saved.message, { status: STATUS_OF_REFUSAL[saved.code] });
+	}
+	return message(form, done);
+}
+
+/**
+ * The write path's own schema over the instants: when the clocks go back, local times in order
+ * can name one instant, which the entity's rule refuses at the end field.
+ */
+function entityInput<S extends z.ZodType>(
+	schema: S,
+	values: object
+): Outcome<{ input: z.output<S> }> {
+	const parsed = schema.safeParse(values);
+	return parsed.success
+		? { ok: true, input: parsed.data }
+		: refuse('invalid', parsed.error.issues[0]!.message, 'end');
 }
 
 const changeForm = z.object({ bookingId: z.string().min(1), state: z.enum(BOOKING_STATES) });
@@ -108,17 +139,16 @@ export const actions: Actions = {
 			id: bookFormId(String(posted.get('campaignId') ?? ''))
 		});
 		if (!form.valid) return fail(400, { form });
-		const slot = localSlotToInstants(form.data, facility.timeZone);
-		if (!slot) return setError(form, 'start', 'Give a date and time.');
-		// The write path's own schema: when the clocks go back, local times in order can name one instant.
-		const input = bookingSchema.safeParse({ ...form.data, ...slot });
-		if (!input.success) return setError(form, 'end', input.error.issues[0]!.message);
-		const created = createBooking(locals.db, user, facility.id, input.data, url.origin);
-		if (!created.ok)
-			return setError(form, refusalField(created, ['start', 'end'] as const), created.message, {
-				status: STATUS_OF_REFUSAL[created.code]
-			});
-		return message(form, 'Slot booked.');
+		return saveSlotForm(
+			form,
+			facility.timeZone,
+			(slot) => {
+				const entity = entityInput(bookingSchema, { ...form.data, ...slot });
+				if (!entity.ok) return entity;
+				return createBooking(locals.db, user, facility.id, entity.input, url.origin);
+			},
+			'Slot booked.'
+		);
 	},
 
 	move: async ({ locals, params, request, url }) => {
@@ -131,14 +161,12 @@ export const actions: Actions = {
 			id: `move-${bookingId}`
 		});
 		if (!form.valid) return fail(400, { form });
-		const slot = localSlotToInstants(form.data, facility.timeZone);
-		if (!slot) return setError(form, 'start', 'Give a date and time.');
-		const moved = changeBooking(locals.db, user, bookingId, slot, url.origin);
-		if (!moved.ok)
-			return setError(form, refusalField(moved, ['start', 'end'] as const), moved.message, {
-				status: STATUS_OF_REFUSAL[moved.code]
-			});
-		return message(form, 'Slot moved.');
+		return saveSlotForm(
+			form,
+			facility.timeZone,
+			(slot) => changeBooking(locals.db, user, bookingId, slot, url.origin),
+			'Slot moved.'
+		);
 	},
 
 	change: async ({ locals, params, request, url }) => {
@@ -163,16 +191,15 @@ export const actions: Actions = {
 		const { user, facility } = bookersFacility(locals, params.id);
 		const form = await superValidate(request, zod4(closureFormSchema), { id: CLOSURE_FORM_ID });
 		if (!form.valid) return fail(400, { form });
-		const slot = localSlotToInstants(form.data, facility.timeZone);
-		if (!slot) return setError(form, 'start', 'Give a date and time.');
-		// The write path's own schema: when the clocks go back, local times in order can name one instant.
-		const input = closureSchema.safeParse({ ...form.data, ...slot });
-		if (!input.success) return setError(form, 'end', input.error.issues[0]!.message);
-		const created = createClosure(locals.db, user, facility.id, input.data);
-		if (!created.ok)
-			return setError(form, refusalField(created, ['start', 'end'] as const), created.message, {
-				status: STATUS_OF_REFUSAL[created.code]
-			});
-		return message(form, 'Closure entered.');
+		return saveSlotForm(
+			form,
+			facility.timeZone,
+			(slot) => {
+				const entity = entityInput(closureSchema, { ...form.data, ...slot });
+				if (!entity.ok) return entity;
+				return createClosure(locals.db, user, facility.id, entity.input);
+			},
+			'Closure entered.'
+		);
 	}
 };
