@@ -36,7 +36,7 @@ export const BOOKING_ACTION_LABELS: Record<BookingAction, string> = {
 };
 
 /** The action that takes a slot to `state`, for clients that name the state they want. */
-export const ACTION_TO_STATE: Record<BookingState, BookingAction> = {
+export const ACTION_FOR_STATE: Record<BookingState, BookingAction> = {
 	pencilled: 'pencil',
 	confirmed: 'confirm',
 	completed: 'complete',

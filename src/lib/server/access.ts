@@ -89,10 +89,15 @@ export function canEditCampaign(viewer: SessionUser, c: CampaignAccessFacts): bo
 	);
 }
 
+/** The viewer as the campaign workflow sees them: their roles and whether they own it. */
+export function campaignActor(viewer: SessionUser, c: { ownerId: string }) {
+	return { roles: viewer.roles, isOwner: c.ownerId === viewer.id };
+}
+
 /** Reviewers decide on other people's campaigns only, never on their own. */
 export function canDecideCampaign(viewer: SessionUser, c: CampaignAccessFacts): boolean {
 	if (!canReadCampaign(viewer, c)) return false;
-	return !verdictRefusal({ roles: viewer.roles, isOwner: c.ownerId === viewer.id });
+	return !verdictRefusal(campaignActor(viewer, c));
 }
 
 export function canEditFacilities(viewer: SessionUser): boolean {

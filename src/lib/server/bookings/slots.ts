@@ -1,6 +1,6 @@
 import { asc, eq } from 'drizzle-orm';
 import {
-	ACTION_TO_STATE,
+	ACTION_FOR_STATE,
 	bookingTransition,
 	type BookingAction,
 	type BookingStep
@@ -89,7 +89,7 @@ export function createBooking(
 /** The workflow steps a change asks for: a new state, a move, or both. */
 function stepsOf(b: Booking, change: BookingChange): BookingAction[] {
 	const steps: BookingAction[] = [];
-	if (change.state && change.state !== b.state) steps.push(ACTION_TO_STATE[change.state]);
+	if (change.state && change.state !== b.state) steps.push(ACTION_FOR_STATE[change.state]);
 	if (change.start || change.end) steps.push('move');
 	return steps;
 }

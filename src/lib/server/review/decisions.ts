@@ -3,6 +3,7 @@ import { anchorLabel } from '../../review/anchor';
 import type { SessionUser } from '../../roles';
 import type { DecisionInput } from '../../schemas/review';
 import { verdictRefusal } from '../../workflow';
+import { campaignActor } from '../access';
 import type { Db } from '../db/open';
 import { campaign, campaignRevision, reviewDecision, reviewNote, user } from '../db/schema';
 import { enqueueMail } from '../mail/outbox';
@@ -23,7 +24,7 @@ const VERDICT_WORDS = {
 export function decisionAccess(db: Db, viewer: SessionUser, campaignId: string): Outcome {
 	const c = readableCampaign(db, viewer, campaignId);
 	if (!c) return refuse('not-found', 'No such campaign.');
-	return verdictRefusal({ roles: viewer.roles, isOwner: c.ownerId === viewer.id }) ?? { ok: true };
+	return verdictRefusal(campaignActor(viewer, c)) ?? { ok: true };
 }
 
 /**

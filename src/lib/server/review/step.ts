@@ -1,7 +1,7 @@
 import { eq } from 'drizzle-orm';
 import type { SessionUser } from '../../roles';
 import { transition, type CampaignAction } from '../../workflow';
-import { canReadCampaign } from '../access';
+import { campaignActor, canReadCampaign } from '../access';
 import type { DbOrTx } from '../db/open';
 import { campaign } from '../db/schema';
 import { refuse } from '../outcome';
@@ -21,10 +21,7 @@ export function checkedStep(
 ) {
 	const c = readableCampaign(tx, viewer, campaignId);
 	if (!c) return { ok: false as const, refusal: refuse('not-found', 'No such campaign.') };
-	const step = transition(c.state, action, {
-		roles: viewer.roles,
-		isOwner: c.ownerId === viewer.id
-	});
+	const step = transition(c.state, action, campaignActor(viewer, c));
 	if (!step.ok) return { ok: false as const, refusal: step };
 	return { ok: true as const, campaign: c, to: step.to };
 }

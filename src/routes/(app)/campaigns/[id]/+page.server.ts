@@ -1,6 +1,6 @@
 import { error, fail, redirect } from '@sveltejs/kit';
 import { CalcInputError } from '$lib/calc';
-import { canEditCampaign, canUploadReadings } from '$lib/server/access';
+import { campaignActor, canEditCampaign, canUploadReadings } from '$lib/server/access';
 import { campaignSlots } from '$lib/server/bookings';
 import { figuresOf } from '$lib/server/campaign-export';
 import { deleteCampaign, getCampaignFor } from '$lib/server/campaigns';
@@ -37,10 +37,7 @@ export const load: PageServerLoad = ({ locals, params }) => {
 		figures,
 		problem,
 		canEdit: canEditCampaign(user, found),
-		actions: availableActions(found.state, {
-			roles: user.roles,
-			isOwner: found.ownerId === user.id
-		}),
+		actions: availableActions(found.state, campaignActor(user, found)),
 		revisions: listRevisions(locals.db, user, found.id) ?? [],
 		trail: auditTrail(locals.db, user, found.id) ?? [],
 		returned: returnNotes(locals.db, user, found.id),

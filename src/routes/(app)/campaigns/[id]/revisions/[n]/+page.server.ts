@@ -3,6 +3,7 @@ import { message, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { diffRevisions } from '$lib/review/diff';
 import { decisionSchema } from '$lib/schemas/review';
+import { campaignActor } from '$lib/server/access';
 import { getCampaignFor } from '$lib/server/campaigns';
 import { requirePermission, requireUser } from '$lib/server/guards';
 import { STATUS_OF_REFUSAL } from '$lib/server/outcome';
@@ -21,10 +22,7 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 	const canDecide =
 		number === found.lastRevision &&
 		!revision.decision &&
-		availableActions(found.state, {
-			roles: user.roles,
-			isOwner: found.ownerId === user.id
-		}).includes('approve');
+		availableActions(found.state, campaignActor(user, found)).includes('approve');
 	return {
 		campaign: {
 			id: found.id,
@@ -37,7 +35,7 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 		previousNumber: previous?.number ?? null,
 		diff: previous ? diffRevisions(previous.snapshot, revision.snapshot) : null,
 		canDecide,
-		isOwnCampaign: found.ownerId === user.id,
+		isOwnCampaign: campaignActor(user, found).isOwner,
 		form: await superValidate(
 			{ revision: number, verdict: 'approve', summary: '', notes: [] },
 			zod4(decisionSchema),
