@@ -52,7 +52,7 @@ describe('campaign workflow, every state × action × role × ownership', () => 
 		}
 		const [needRole, needOwner] = NEEDS[action];
 		const rightActor = role === needRole && isOwner === needOwner;
-		expect(result).toMatchObject({ ok: false, status: rightActor ? 409 : 403 });
+		expect(result).toMatchObject({ ok: false, code: rightActor ? 'conflict' : 'forbidden' });
 	});
 
 	it('never lets a reviewer decide on a campaign they own', () => {
@@ -60,8 +60,8 @@ describe('campaign workflow, every state × action × role × ownership', () => 
 			transition('in-review', 'approve', { roles: ['reviewer', 'aerodynamicist'], isOwner: true })
 		).toMatchObject({
 			ok: false,
-			status: 403,
-			reason: 'You cannot decide on a campaign you own.'
+			code: 'forbidden',
+			message: 'You cannot decide on a campaign you own.'
 		});
 	});
 

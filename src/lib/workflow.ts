@@ -1,3 +1,4 @@
+import { refuse, type Refusal } from './refusal';
 import type { Role } from './roles';
 
 /**
@@ -39,8 +40,7 @@ export const TRANSITIONS: Record<CampaignAction, Rule> = {
 	revise: { from: ['approved'], to: 'draft', role: 'aerodynamicist', who: 'owner' }
 };
 
-export type TransitionResult =
-	{ ok: true; to: CampaignState } | { ok: false; status: 403 | 409; reason: string };
+export type TransitionResult = { ok: true; to: CampaignState } | Refusal;
 
 export const ACTION_LABELS: Record<CampaignAction, string> = {
 	submit: 'submit for review',
@@ -51,6 +51,29 @@ export const ACTION_LABELS: Record<CampaignAction, string> = {
 	revise: 'start a new revision'
 };
 
+type Actor = { roles: readonly Role[]; isOwner: boolean };
+
+/**
+ * Whether `actor` holds the role and the relation to the campaign that `action` needs, whatever
+ * the campaign's state; null if so, else the refusal.
+ */
+export function actorRefusal(action: CampaignAction, actor: Actor): Refusal | null {
+	const rule = TRANSITIONS[action];
+	if (!actor.roles.includes(rule.role))
+		return refuse('forbidden', `Only a ${rule.role} can ${ACTION_LABELS[action]}.`);
+	if (rule.who === 'owner' && !actor.isOwner)
+		return refuse('forbidden', `Only the campaign's owner can ${ACTION_LABELS[action]}.`);
+	if (rule.who === 'not-owner' && actor.isOwner)
+		return refuse('forbidden', 'You cannot decide on a campaign you own.');
+	return null;
+}
+
+/** Whether `actor` may give any verdict at all: null if so, else the refusal of the first. */
+export function verdictRefusal(actor: Actor): Refusal | null {
+	const refusals = VERDICTS.map((v) => actorRefusal(v, actor));
+	return refusals.includes(null) ? null : refusals[0]!;
+}
+
 /**
  * Whether `actor` may take `action` on a campaign in `state`. Who may act is checked before
  * the state, so a user without the right learns nothing about the campaign's progress.
@@ -58,36 +81,20 @@ export const ACTION_LABELS: Record<CampaignAction, string> = {
 export function transition(
 	state: CampaignState,
 	action: CampaignAction,
-	actor: { roles: readonly Role[]; isOwner: boolean }
+	actor: Actor
 ): TransitionResult {
+	const refused = actorRefusal(action, actor);
+	if (refused) return refused;
 	const rule = TRANSITIONS[action];
-	if (!actor.roles.includes(rule.role)) {
-		return { ok: false, status: 403, reason: `Only a ${rule.role} can ${ACTION_LABELS[action]}.` };
-	}
-	if (rule.who === 'owner' && !actor.isOwner) {
-		return {
-			ok: false,
-			status: 403,
-			reason: `Only the campaign's owner can ${ACTION_LABELS[action]}.`
-		};
-	}
-	if (rule.who === 'not-owner' && actor.isOwner) {
-		return { ok: false, status: 403, reason: 'You cannot decide on a campaign you own.' };
-	}
-	if (!rule.from.includes(state)) {
-		return {
-			ok: false,
-			status: 409,
-			reason: `Cannot ${ACTION_LABELS[action]} a campaign that is ${state}; it must be ${rule.from.join(' or ')}.`
-		};
-	}
+	if (!rule.from.includes(state))
+		return refuse(
+			'conflict',
+			`Cannot ${ACTION_LABELS[action]} a campaign that is ${state}; it must be ${rule.from.join(' or ')}.`
+		);
 	return { ok: true, to: rule.to };
 }
 
 /** The actions open to `actor` now, for the buttons a page shows (the server checks again). */
-export function availableActions(
-	state: CampaignState,
-	actor: { roles: readonly Role[]; isOwner: boolean }
-): CampaignAction[] {
+export function availableActions(state: CampaignState, actor: Actor): CampaignAction[] {
 	return CAMPAIGN_ACTIONS.filter((a) => transition(state, a, actor).ok);
 }

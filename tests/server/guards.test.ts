@@ -1,6 +1,6 @@
 import { isHttpError } from '@sveltejs/kit';
 import { describe, expect, it } from 'vitest';
-import { requireRole, requireUser } from '../../src/lib/server/guards';
+import { requirePermission, requireRole, requireUser } from '../../src/lib/server/guards';
 import { ROLES, type Role, type SessionUser } from '../../src/lib/roles';
 
 function localsWith(roles: Role[] | null): App.Locals {
@@ -36,5 +36,22 @@ describe('requireRole', () => {
 		}
 		expect(statusOf(() => requireRole(localsWith(['reviewer']), 'operator', 'reviewer'))).toBe(200);
 		expect(statusOf(() => requireRole(localsWith([]), 'aerodynamicist'))).toBe(403);
+	});
+});
+
+describe('requirePermission', () => {
+	it('answers as requireRole for the roles a permission names', () => {
+		// Operators and admins keep the calendar (product rule, booking).
+		const expected: Record<Role, number> = {
+			aerodynamicist: 403,
+			reviewer: 403,
+			operator: 200,
+			admin: 200
+		};
+		for (const role of ROLES)
+			expect(statusOf(() => requirePermission(localsWith([role]), 'book-tunnel-time'))).toBe(
+				expected[role]
+			);
+		expect(statusOf(() => requirePermission(localsWith(null), 'book-tunnel-time'))).toBe(401);
 	});
 });

@@ -34,3 +34,13 @@ export function localParts(instant: Date | number, timeZone: string) {
 		input: t.toFormat("yyyy-LL-dd'T'HH:mm")
 	};
 }
+
+/** A form's local start and end as instants; null where either is not a time in the zone. */
+export function localSlotToInstants(
+	slot: { start: string; end: string },
+	timeZone: string
+): { start: Date; end: Date } | null {
+	const start = localToInstant(slot.start, timeZone);
+	const end = localToInstant(slot.end, timeZone);
+	return start && end ? { start, end } : null;
+}

@@ -1,13 +1,34 @@
 import { gt, inArray, or, sql, type SQL } from 'drizzle-orm';
-import type { SessionUser } from '../roles';
+import { BOOKING_ROLES } from '../booking/workflow';
+import type { Role, SessionUser } from '../roles';
 import type { ApiTokenScope } from '../schemas/api-token';
-import type { CampaignState } from '../workflow';
+import { verdictRefusal, type CampaignState } from '../workflow';
 import { campaign } from './db/schema';
 
 /**
- * Who may see and change what. Clients' work is confidential from each other, so team
- * membership gates every model and campaign; facility staff read campaigns once submitted.
+ * Who may see and change what: every role and ownership rule of the product, tested as one
+ * table in tests/server/access-table.test.ts. Clients' work is confidential from each other, so
+ * team membership gates every model and campaign; facility staff read campaigns once submitted.
  */
+
+/** What a role alone allows, whatever the record; routes check these with requirePermission. */
+export const PERMISSIONS = {
+	'list-campaigns': ['aerodynamicist', 'reviewer', 'operator', 'admin'],
+	'draft-campaigns': ['aerodynamicist'],
+	'decide-campaigns': ['reviewer'],
+	'read-review-queue': ['reviewer', 'admin'],
+	'read-models': ['aerodynamicist', 'admin'],
+	'keep-models': ['aerodynamicist'],
+	'book-tunnel-time': BOOKING_ROLES,
+	'edit-facilities': ['operator', 'admin']
+} as const satisfies Record<string, readonly Role[]>;
+export type Permission = keyof typeof PERMISSIONS;
+
+export function can(viewer: SessionUser, permission: Permission): boolean {
+	const roles: readonly Role[] = PERMISSIONS[permission];
+	return roles.some((r) => viewer.roles.includes(r));
+}
+
 export type CampaignAccessFacts = {
 	teamId: string;
 	ownerId: string;
@@ -25,8 +46,15 @@ export function canReadModel(viewer: SessionUser, model: { teamId: string }): bo
 	);
 }
 
+/** A model is kept by its own team's aerodynamicists; admins read every model but keep none. */
 export function canWriteModel(viewer: SessionUser, model: { teamId: string }): boolean {
-	return canReadModel(viewer, model);
+	return can(viewer, 'keep-models') && inTeam(viewer, model.teamId);
+}
+
+/** canReadModel for listings: the teams whose models the viewer sees, or every team. */
+export function readableModelTeams(viewer: SessionUser): 'all' | string[] {
+	if (isAdmin(viewer)) return 'all';
+	return viewer.roles.includes('aerodynamicist') ? viewer.teams.map((t) => t.id) : [];
 }
 
 export function canReadCampaign(viewer: SessionUser, c: CampaignAccessFacts): boolean {
@@ -61,8 +89,33 @@ export function canEditCampaign(viewer: SessionUser, c: CampaignAccessFacts): bo
 	);
 }
 
+/** The viewer as the campaign workflow sees them: their roles and whether they own it. */
+export function campaignActor(viewer: SessionUser, c: { ownerId: string }) {
+	return { roles: viewer.roles, isOwner: c.ownerId === viewer.id };
+}
+
+/** Reviewers decide on other people's campaigns only, never on their own. */
+export function canDecideCampaign(viewer: SessionUser, c: CampaignAccessFacts): boolean {
+	if (!canReadCampaign(viewer, c)) return false;
+	return !verdictRefusal(campaignActor(viewer, c));
+}
+
 export function canEditFacilities(viewer: SessionUser): boolean {
-	return isAdmin(viewer) || viewer.roles.includes('operator');
+	return can(viewer, 'edit-facilities');
+}
+
+/** Operators and admins book tunnel time, change slots and enter closures. */
+export function canBook(viewer: SessionUser): boolean {
+	return can(viewer, 'book-tunnel-time');
+}
+
+/**
+ * Whose booked slot shows its campaign, note and cost: the facility's staff and the campaign's
+ * own team. Everyone else sees the time as busy only.
+ */
+export function canSeeBookingDetails(viewer: SessionUser, slot: { teamId: string }): boolean {
+	const staff = canBook(viewer) || viewer.roles.includes('reviewer');
+	return staff || inTeam(viewer, slot.teamId);
 }
 
 /**

@@ -2,7 +2,7 @@ import { desc, eq } from 'drizzle-orm';
 import { settingFindings } from '../calc';
 import type { SessionUser } from '../roles';
 import type { CampaignDefinition, CampaignInput } from '../schemas/campaign';
-import { canEditCampaign, canReadCampaign, readableCampaigns } from './access';
+import { can, canEditCampaign, canReadCampaign, readableCampaigns } from './access';
 import type { Db } from './db/open';
 import { campaign, facility, scaleModel, team, user } from './db/schema';
 import { getFacility, type Facility } from './facilities';
@@ -104,7 +104,7 @@ export function createCampaign(
 	viewer: SessionUser,
 	input: CampaignInput
 ): Outcome<{ id: string }> {
-	if (!viewer.roles.includes('aerodynamicist'))
+	if (!can(viewer, 'draft-campaigns'))
 		return refuse('forbidden', 'Only aerodynamicists draft campaigns.');
 	const links = resolveLinks(db, viewer, input);
 	if (!links.ok) return links;
@@ -116,17 +116,32 @@ export function createCampaign(
 	return { ok: true, id };
 }
 
+/**
+ * The campaign if the viewer may change it: not found when they may not read it, forbidden when
+ * they read but do not own the draft. Routes ask this before they read a request body.
+ */
+export function editableCampaign(
+	db: Db,
+	viewer: SessionUser,
+	id: string
+): Outcome<{ campaign: Campaign }> {
+	const existing = db.select().from(campaign).where(eq(campaign.id, id)).get();
+	if (!existing || !canReadCampaign(viewer, existing))
+		return refuse('not-found', 'No such campaign.');
+	if (!canEditCampaign(viewer, existing))
+		return refuse('forbidden', 'Only the owner can change a draft.');
+	return { ok: true, campaign: existing };
+}
+
 export function updateCampaign(
 	db: Db,
 	viewer: SessionUser,
 	id: string,
 	input: CampaignInput
 ): Outcome {
-	const existing = db.select().from(campaign).where(eq(campaign.id, id)).get();
-	if (!existing || !canReadCampaign(viewer, existing))
-		return refuse('not-found', 'No such campaign.');
-	if (!canEditCampaign(viewer, existing))
-		return refuse('forbidden', 'Only the owner can change a draft.');
+	const editable = editableCampaign(db, viewer, id);
+	if (!editable.ok) return editable;
+	const existing = editable.campaign;
 	const links = resolveLinks(db, viewer, input);
 	if (!links.ok) return links;
 	if (links.model.teamId !== existing.teamId)

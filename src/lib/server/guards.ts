@@ -1,5 +1,6 @@
 import { error } from '@sveltejs/kit';
 import type { Role } from '../roles';
+import { PERMISSIONS, type Permission } from './access';
 import type { SessionUser } from './users';
 
 /** The signed-in user, or a 401 that pages show as "sign in" and the API as JSON. */
@@ -18,4 +19,9 @@ export function requireRole(locals: App.Locals, ...roles: Role[]): SessionUser {
 		});
 	}
 	return user;
+}
+
+/** The signed-in user whose roles grant `permission` (see access.ts), or a 403. */
+export function requirePermission(locals: App.Locals, permission: Permission): SessionUser {
+	return requireRole(locals, ...PERMISSIONS[permission]);
 }

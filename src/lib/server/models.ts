@@ -1,7 +1,7 @@
 import { and, asc, desc, eq, inArray } from 'drizzle-orm';
 import type { SessionUser } from '../roles';
 import { ATTACHMENT_MAX_BYTES, type ScaleModelInput } from '../schemas/model';
-import { canReadModel, canWriteModel } from './access';
+import { canReadModel, canWriteModel, readableModelTeams } from './access';
 import type { Db } from './db/open';
 import { modelAttachment, scaleModel, team } from './db/schema';
 import { refuse, type Outcome } from './outcome';
@@ -31,9 +31,9 @@ const flatten = ({
 /** Models visible to the user: their own teams' only (admins: all), since clients' work is confidential. */
 export function listModelsFor(db: Db, viewer: SessionUser): ScaleModel[] {
 	const query = withTeam(db).orderBy(asc(team.name), asc(scaleModel.name));
-	if (viewer.roles.includes('admin')) return query.all().map(flatten);
-	const teamIds = viewer.teams.map((t) => t.id);
-	if (!teamIds.length || !viewer.roles.includes('aerodynamicist')) return [];
+	const teamIds = readableModelTeams(viewer);
+	if (teamIds === 'all') return query.all().map(flatten);
+	if (!teamIds.length) return [];
 	return withTeam(db)
 		.where(inArray(scaleModel.teamId, teamIds))
 		.orderBy(asc(team.name), asc(scaleModel.name))
@@ -75,14 +75,26 @@ export function createModel(
 	return { ok: true, id };
 }
 
+/** The model if the viewer may change it; not found alike for none and not theirs. */
+export function writableModel(
+	db: Db,
+	viewer: SessionUser,
+	id: string
+): Outcome<{ model: ScaleModel }> {
+	const model = getModelFor(db, viewer, id);
+	if (!model || !canWriteModel(viewer, model)) return refuse('not-found', 'No such model.');
+	return { ok: true, model };
+}
+
 export function updateModel(
 	db: Db,
 	viewer: SessionUser,
 	id: string,
 	input: ScaleModelInput
 ): Outcome {
-	const existing = getModelFor(db, viewer, id);
-	if (!existing || !canWriteModel(viewer, existing)) return refuse('not-found', 'No such model.');
+	const writable = writableModel(db, viewer, id);
+	if (!writable.ok) return writable;
+	const existing = writable.model;
 	if (input.teamId !== existing.teamId && !canWriteModel(viewer, { teamId: input.teamId })) {
 		return refuse('forbidden', 'You can move a model only to your own team.', 'teamId');
 	}
@@ -110,8 +122,8 @@ export async function addAttachment(
 	modelId: string,
 	file: { name: string; bytes: Uint8Array }
 ): Promise<Outcome<{ id: string }>> {
-	const model = getModelFor(db, viewer, modelId);
-	if (!model || !canWriteModel(viewer, model)) return refuse('not-found', 'No such model.');
+	const writable = writableModel(db, viewer, modelId);
+	if (!writable.ok) return writable;
 	if (file.bytes.byteLength === 0) return refuse('invalid', 'The file is empty.', 'file');
 	if (file.bytes.byteLength > ATTACHMENT_MAX_BYTES) {
 		return refuse(

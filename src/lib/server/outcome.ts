@@ -1,16 +1,8 @@
-/** Expected failures of a domain operation, named so routes can map them to HTTP statuses. */
-export type Refusal = {
-	ok: false;
-	code: 'not-found' | 'conflict' | 'forbidden' | 'invalid';
-	message: string;
-	field?: string;
-};
-export type Outcome<T = object> = ({ ok: true } & T) | Refusal;
+import type { Refusal } from '../refusal';
 
-export function refuse(code: Refusal['code'], message: string, field?: string): Refusal {
-	return { ok: false, code, message, ...(field ? { field } : {}) };
-}
+export { refuse, type Outcome, type Refusal } from '../refusal';
 
+/** The one place a refusal becomes an HTTP status. */
 export const STATUS_OF_REFUSAL = {
 	invalid: 400,
 	forbidden: 403,

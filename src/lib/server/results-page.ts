@@ -14,11 +14,11 @@ export const resultsQuery = z.object({
 
 /** What the results page and the printable report load: the campaign, its geometry, the results. */
 export function resultsPageData(db: Db, viewer: SessionUser, campaignId: string, url: URL) {
+	const found = getCampaignFor(db, viewer, campaignId);
+	if (!found) error(404, { message: 'No such campaign.' });
 	const query = resultsQuery.safeParse(Object.fromEntries(url.searchParams));
 	if (!query.success)
 		error(400, { message: 'The baseline or tolerance in the address is not valid.' });
-	const found = getCampaignFor(db, viewer, campaignId);
-	if (!found) error(404, { message: 'No such campaign.' });
 	const reduced = campaignResults(db, viewer, campaignId, query.data);
 	if (!reduced.ok) error(STATUS_OF_REFUSAL[reduced.code], { message: reduced.message });
 	const scale = 1 / found.model.scaleDenominator;

@@ -1,17 +1,18 @@
 import { matrixPointCount } from '$lib/schemas/campaign';
 import { listCampaignsFor } from '$lib/server/campaigns';
-import { requireRole } from '$lib/server/guards';
+import { can } from '$lib/server/access';
+import { requirePermission } from '$lib/server/guards';
 import { listModelsFor } from '$lib/server/models';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ locals }) => {
-	const user = requireRole(locals, 'aerodynamicist', 'reviewer', 'operator', 'admin');
+	const user = requirePermission(locals, 'list-campaigns');
 	return {
 		campaigns: listCampaignsFor(locals.db, user).map(({ definition, ...c }) => ({
 			...c,
 			points: matrixPointCount(definition)
 		})),
 		models: listModelsFor(locals.db, user),
-		canDraft: user.roles.includes('aerodynamicist')
+		canDraft: can(user, 'draft-campaigns')
 	};
 };

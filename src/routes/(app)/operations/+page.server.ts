@@ -1,11 +1,11 @@
 import { bookableCampaigns } from '$lib/server/bookings';
 import { listFacilities } from '$lib/server/facilities';
-import { requireRole } from '$lib/server/guards';
+import { requirePermission } from '$lib/server/guards';
 import { SCHEDULE_WEEKS, upcomingSchedule } from '$lib/server/schedule';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ locals }) => {
-	requireRole(locals, 'operator', 'admin');
+	requirePermission(locals, 'book-tunnel-time');
 	return {
 		facilities: listFacilities(locals.db).map((f) => ({
 			...f,

@@ -1,8 +1,8 @@
-import { requireRole } from '$lib/server/guards';
+import { requirePermission } from '$lib/server/guards';
 import { reviewQueue } from '$lib/server/review';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ locals }) => {
-	const user = requireRole(locals, 'reviewer', 'admin');
+	const user = requirePermission(locals, 'read-review-queue');
 	return { queue: reviewQueue(locals.db, user) };
 };

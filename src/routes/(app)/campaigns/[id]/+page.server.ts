@@ -1,6 +1,6 @@
 import { error, fail, redirect } from '@sveltejs/kit';
 import { CalcInputError } from '$lib/calc';
-import { canEditCampaign } from '$lib/server/access';
+import { campaignActor, canEditCampaign, canUploadReadings } from '$lib/server/access';
 import { campaignSlots } from '$lib/server/bookings';
 import { figuresOf } from '$lib/server/campaign-export';
 import { deleteCampaign, getCampaignFor } from '$lib/server/campaigns';
@@ -37,10 +37,7 @@ export const load: PageServerLoad = ({ locals, params }) => {
 		figures,
 		problem,
 		canEdit: canEditCampaign(user, found),
-		actions: availableActions(found.state, {
-			roles: user.roles,
-			isOwner: found.ownerId === user.id
-		}),
+		actions: availableActions(found.state, campaignActor(user, found)),
 		revisions: listRevisions(locals.db, user, found.id) ?? [],
 		trail: auditTrail(locals.db, user, found.id) ?? [],
 		returned: returnNotes(locals.db, user, found.id),
@@ -66,6 +63,12 @@ export const actions: Actions = {
 	/** The upload form without JavaScript; with it, the page posts to the API and shows progress. */
 	readings: async ({ locals, params, request }) => {
 		const user = requireUser(locals);
+		const found = getCampaignFor(locals.db, user, params.id);
+		if (!found) error(404, { message: 'No such campaign.' });
+		if (!canUploadReadings(user, found))
+			return fail(403, {
+				readingsAnswer: { message: 'You cannot send readings for this campaign.' }
+			});
 		const form = await request.formData().catch(() => null);
 		const file = form?.get('file');
 		if (!(file instanceof File) || file.size === 0)

@@ -2,21 +2,20 @@ import { fail, redirect } from '@sveltejs/kit';
 import { setError, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { facilityDefaults, facilitySchema } from '$lib/schemas/facility';
-import { canEditFacilities } from '$lib/server/access';
 import { createFacility } from '$lib/server/facilities';
-import { requireRole } from '$lib/server/guards';
+import { requirePermission } from '$lib/server/guards';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ locals }) => {
-	requireRole(locals, 'operator', 'admin');
+	requirePermission(locals, 'edit-facilities');
 	return { form: await superValidate(facilityDefaults(), zod4(facilitySchema), { errors: false }) };
 };
 
 export const actions: Actions = {
 	default: async ({ locals, request }) => {
-		const user = requireRole(locals, 'operator', 'admin');
+		requirePermission(locals, 'edit-facilities');
 		const form = await superValidate(request, zod4(facilitySchema));
-		if (!form.valid || !canEditFacilities(user)) return fail(400, { form });
+		if (!form.valid) return fail(400, { form });
 		const created = createFacility(locals.db, form.data);
 		if (!created.ok) return setError(form, 'name', created.message, { status: 409 });
 		redirect(303, `/facilities/${created.id}`);

@@ -1,7 +1,8 @@
 import { error, fail } from '@sveltejs/kit';
 import { attachmentStore } from '$lib/server/attachments';
 import { requireRole } from '$lib/server/guards';
-import { addAttachment, getModelFor, listAttachments } from '$lib/server/models';
+import { canWriteModel } from '$lib/server/access';
+import { addAttachment, getModelFor, listAttachments, writableModel } from '$lib/server/models';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ locals, params }) => {
@@ -11,13 +12,15 @@ export const load: PageServerLoad = ({ locals, params }) => {
 	return {
 		model,
 		attachments: listAttachments(locals.db, model.id),
-		canEdit: user.roles.includes('aerodynamicist')
+		canEdit: canWriteModel(user, model)
 	};
 };
 
 export const actions: Actions = {
 	attach: async ({ locals, params, request }) => {
 		const user = requireRole(locals, 'aerodynamicist');
+		const writable = writableModel(locals.db, user, params.id);
+		if (!writable.ok) error(404, { message: writable.message });
 		const file = (await request.formData()).get('file');
 		if (!(file instanceof File) || file.size === 0)
 			return fail(400, { attachError: 'Choose a file to attach.' });

@@ -4,11 +4,17 @@ import { zod4 } from 'sveltekit-superforms/adapters';
 import { campaignSchema } from '$lib/schemas/campaign';
 import { canEditCampaign } from '$lib/server/access';
 import { saveCampaignForm } from '$lib/server/campaign-form';
-import { campaignInput, getCampaignFor, updateCampaign } from '$lib/server/campaigns';
+import {
+	campaignInput,
+	editableCampaign,
+	getCampaignFor,
+	updateCampaign
+} from '$lib/server/campaigns';
 import { listFacilities } from '$lib/server/facilities';
 import { requireRole } from '$lib/server/guards';
 import { returnNotes } from '$lib/server/review';
 import { listModelsFor } from '$lib/server/models';
+import { STATUS_OF_REFUSAL } from '$lib/server/outcome';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ locals, params }) => {
@@ -29,6 +35,8 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 export const actions: Actions = {
 	default: async (event) => {
 		const user = requireRole(event.locals, 'aerodynamicist');
+		const editable = editableCampaign(event.locals.db, user, event.params.id);
+		if (!editable.ok) error(STATUS_OF_REFUSAL[editable.code], { message: editable.message });
 		return saveCampaignForm(
 			event,
 			(input) => updateCampaign(event.locals.db, user, event.params.id, input),

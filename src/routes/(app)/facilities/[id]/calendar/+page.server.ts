@@ -1,23 +1,40 @@
 import { error, fail } from '@sveltejs/kit';
-import { localToInstant, weekOf } from '$lib/booking/week';
+import { message, setError, superValidate, type SuperValidated } from 'sveltekit-superforms';
+import { zod4 } from 'sveltekit-superforms/adapters';
+import { z } from 'zod';
 import { openingWindows } from '$lib/booking/calendar';
-import { bookingChangeSchema, bookingSchema, closureSchema } from '$lib/schemas/booking';
-import { fieldMessages } from '$lib/server/api';
+import { BOOKING_STATES } from '$lib/booking/rules';
+import { localSlotToInstants, weekOf } from '$lib/booking/week';
+import { availableBookingActions } from '$lib/booking/workflow';
+import {
+	bookingFormSchema,
+	bookingMoveFormSchema,
+	bookingSchema,
+	closureFormSchema,
+	closureSchema,
+	type BookingFormInput
+} from '$lib/schemas/booking';
+import { canBook } from '$lib/server/access';
 import {
 	bookableCampaigns,
 	changeBooking,
 	createBooking,
 	createClosure,
+	findBookingFor,
 	listBookings,
 	listClosures,
 	proposeFor
 } from '$lib/server/bookings';
 import { getFacility } from '$lib/server/facilities';
-import { requireRole, requireUser } from '$lib/server/guards';
-import { STATUS_OF_REFUSAL } from '$lib/server/outcome';
+import { requirePermission, requireUser } from '$lib/server/guards';
+import { refuse, STATUS_OF_REFUSAL, type Outcome } from '$lib/server/outcome';
 import type { Actions, PageServerLoad } from './$types';
 
-export const load: PageServerLoad = ({ locals, params, url }) => {
+/** Each campaign's booking form has its own id, so a refusal lands in that campaign's form. */
+const bookFormId = (campaignId: string) => `book-${campaignId}`;
+const CLOSURE_FORM_ID = 'closure';
+
+export const load: PageServerLoad = async ({ locals, params, url }) => {
 	const user = requireUser(locals);
 	const facility = getFacility(locals.db, params.id);
 	if (!facility) error(404, { message: 'No such facility.' });
@@ -25,14 +42,26 @@ export const load: PageServerLoad = ({ locals, params, url }) => {
 	const week = weekOf(day ?? url.searchParams.get('week'), facility.timeZone);
 	// The day view is one column of the same week, wider.
 	const shown = day ? week.days.filter((d) => d.iso === day) : week.days;
-	const canBook = user.roles.includes('operator') || user.roles.includes('admin');
+	const booker = canBook(user);
 	const now = Date.now();
+	const bookable = booker ? bookableCampaigns(locals.db, facility.id) : [];
+	const bookForms: Record<string, SuperValidated<BookingFormInput>> = {};
+	for (const c of bookable) {
+		bookForms[c.id] = await superValidate(
+			{ campaignId: c.id, start: '', end: '', note: '' },
+			zod4(bookingFormSchema),
+			{ id: bookFormId(c.id), errors: false }
+		);
+	}
 	return {
 		facility,
 		week,
 		view: day && shown.length ? ('day' as const) : ('week' as const),
 		days: shown.length ? shown : week.days,
-		bookings: listBookings(locals.db, user, facility.id, week.from, week.to),
+		bookings: listBookings(locals.db, user, facility.id, week.from, week.to).map((b) => ({
+			...b,
+			actions: availableBookingActions(b.state, user)
+		})),
 		closures: listClosures(locals.db, facility.id, week.from, week.to),
 		windows: openingWindows(
 			facility.openingHours,
@@ -40,79 +69,137 @@ export const load: PageServerLoad = ({ locals, params, url }) => {
 			week.from.getTime(),
 			week.to.getTime()
 		),
-		canBook,
-		bookable: canBook
-			? bookableCampaigns(locals.db, facility.id).map((c) => ({
-					...c,
-					proposal: proposeFor(locals.db, facility.id, c.occupancy_s - c.booked_s, now)
-				}))
-			: []
+		canBook: booker,
+		bookable: bookable.map((c) => ({
+			...c,
+			proposal: proposeFor(locals.db, facility.id, c.occupancy_s - c.booked_s, now)
+		})),
+		bookForms,
+		closureForm: booker
+			? await superValidate(
+					{ kind: 'maintenance' as const, reason: '', start: '', end: '' },
+					zod4(closureFormSchema),
+					{ id: CLOSURE_FORM_ID, errors: false }
+				)
+			: null
 	};
 };
 
-/** Reads a form's facility-local times into UTC instants before the shared schema checks them. */
-function instants(form: FormData, timeZone: string, ...names: string[]) {
-	const values: Record<string, unknown> = Object.fromEntries(form);
-	for (const name of names) {
-		const local = form.get(name);
-		if (typeof local === 'string' && local) values[name] = localToInstant(local, timeZone) ?? local;
-		else delete values[name];
-	}
-	return values;
+/** The facility, once the user may keep its calendar: checked before any form is read. */
+function bookersFacility(locals: App.Locals, facilityId: string) {
+	const user = requirePermission(locals, 'book-tunnel-time');
+	const facility = getFacility(locals.db, facilityId);
+	if (!facility) error(404, { message: 'No such facility.' });
+	return { user, facility };
 }
+
+type LocalSlotForm = SuperValidated<{ start: string; end: string }>;
+
+/**
+ * Answers a valid slot form: its local times become instants in the facility's zone, `save`
+ * takes them, and a refusal lands at its field (else on the form), success as `done`.
+ */
+function saveSlotForm(
+	form: LocalSlotForm,
+	timeZone: string,
+	save: (slot: { start: Date; end: Date }) => Outcome<unknown>,
+	done: string
+) {
+	const slot = localSlotToInstants(form.data, timeZone);
+	if (!slot) return setError(form, 'start', 'Give a date and time.');
+	const saved = save(slot);
+	if (!saved.ok) {
+		const field = saved.field === 'start' || saved.field === 'end' ? saved.field : '';
+		return setError(form, field, saved.message, { status: STATUS_OF_REFUSAL[saved.code] });
+	}
+	return message(form, done);
+}
+
+/**
+ * The write path's own schema over the instants: when the clocks go back, local times in order
+ * can name one instant, which the entity's rule refuses at the end field.
+ */
+function entityInput<S extends z.ZodType>(
+	schema: S,
+	values: object
+): Outcome<{ input: z.output<S> }> {
+	const parsed = schema.safeParse(values);
+	return parsed.success
+		? { ok: true, input: parsed.data }
+		: refuse('invalid', parsed.error.issues[0]!.message, 'end');
+}
+
+const changeForm = z.object({ bookingId: z.string().min(1), state: z.enum(BOOKING_STATES) });
 
 export const actions: Actions = {
 	book: async ({ locals, params, request, url }) => {
-		const user = requireRole(locals, 'operator', 'admin');
-		const facility = getFacility(locals.db, params.id);
-		if (!facility) error(404, { message: 'No such facility.' });
-		const parsed = bookingSchema.safeParse(
-			instants(await request.formData(), facility.timeZone, 'start', 'end')
+		const { user, facility } = bookersFacility(locals, params.id);
+		const posted = await request.formData();
+		const form = await superValidate(posted, zod4(bookingFormSchema), {
+			id: bookFormId(String(posted.get('campaignId') ?? ''))
+		});
+		if (!form.valid) return fail(400, { form });
+		return saveSlotForm(
+			form,
+			facility.timeZone,
+			(slot) => {
+				const entity = entityInput(bookingSchema, { ...form.data, ...slot });
+				if (!entity.ok) return entity;
+				return createBooking(locals.db, user, facility.id, entity.input, url.origin);
+			},
+			'Slot booked.'
 		);
-		if (!parsed.success)
-			return fail(400, {
-				bookingError: Object.values(fieldMessages(parsed.error)).flat().join(' ')
-			});
-		const created = createBooking(locals.db, user, facility.id, parsed.data, url.origin);
-		if (!created.ok)
-			return fail(STATUS_OF_REFUSAL[created.code], { bookingError: created.message });
-		return { booked: created.id };
 	},
+
+	move: async ({ locals, params, request, url }) => {
+		const { user, facility } = bookersFacility(locals, params.id);
+		const posted = await request.formData();
+		const bookingId = String(posted.get('bookingId') ?? '');
+		const found = findBookingFor(locals.db, user, bookingId, facility.id);
+		if (!found.ok) error(STATUS_OF_REFUSAL[found.code], { message: found.message });
+		const form = await superValidate(posted, zod4(bookingMoveFormSchema), {
+			id: `move-${bookingId}`
+		});
+		if (!form.valid) return fail(400, { form });
+		return saveSlotForm(
+			form,
+			facility.timeZone,
+			(slot) => changeBooking(locals.db, user, bookingId, slot, url.origin),
+			'Slot moved.'
+		);
+	},
+
 	change: async ({ locals, params, request, url }) => {
-		const user = requireRole(locals, 'operator', 'admin');
-		const facility = getFacility(locals.db, params.id);
-		if (!facility) error(404, { message: 'No such facility.' });
-		const form = await request.formData();
-		const parsed = bookingChangeSchema.safeParse(instants(form, facility.timeZone, 'start', 'end'));
-		if (!parsed.success)
-			return fail(400, {
-				bookingError: Object.values(fieldMessages(parsed.error)).flat().join(' ')
-			});
+		const { user, facility } = bookersFacility(locals, params.id);
+		const posted = Object.fromEntries(await request.formData());
+		const found = findBookingFor(locals.db, user, String(posted.bookingId ?? ''), facility.id);
+		if (!found.ok) error(STATUS_OF_REFUSAL[found.code], { message: found.message });
+		const parsed = changeForm.safeParse(posted);
+		if (!parsed.success) return fail(400, { stepError: 'Choose what the slot becomes.' });
 		const changed = changeBooking(
 			locals.db,
 			user,
-			String(form.get('bookingId')),
-			parsed.data,
+			found.booking.id,
+			{ state: parsed.data.state },
 			url.origin
 		);
-		if (!changed.ok)
-			return fail(STATUS_OF_REFUSAL[changed.code], { bookingError: changed.message });
-		return { changed: true };
+		if (!changed.ok) return fail(STATUS_OF_REFUSAL[changed.code], { stepError: changed.message });
+		return { changed: parsed.data.state };
 	},
+
 	close: async ({ locals, params, request }) => {
-		const user = requireRole(locals, 'operator', 'admin');
-		const facility = getFacility(locals.db, params.id);
-		if (!facility) error(404, { message: 'No such facility.' });
-		const parsed = closureSchema.safeParse(
-			instants(await request.formData(), facility.timeZone, 'start', 'end')
+		const { user, facility } = bookersFacility(locals, params.id);
+		const form = await superValidate(request, zod4(closureFormSchema), { id: CLOSURE_FORM_ID });
+		if (!form.valid) return fail(400, { form });
+		return saveSlotForm(
+			form,
+			facility.timeZone,
+			(slot) => {
+				const entity = entityInput(closureSchema, { ...form.data, ...slot });
+				if (!entity.ok) return entity;
+				return createClosure(locals.db, user, facility.id, entity.input);
+			},
+			'Closure entered.'
 		);
-		if (!parsed.success)
-			return fail(400, {
-				closureError: Object.values(fieldMessages(parsed.error)).flat().join(' ')
-			});
-		const created = createClosure(locals.db, user, facility.id, parsed.data);
-		if (!created.ok)
-			return fail(STATUS_OF_REFUSAL[created.code], { closureError: created.message });
-		return { closed: created.id };
 	}
 };

@@ -22,6 +22,7 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 export const actions: Actions = {
 	default: async ({ locals, params, request }) => {
 		requireRole(locals, 'operator', 'admin');
+		if (!getFacility(locals.db, params.id)) error(404, { message: 'No such facility.' });
 		const form = await superValidate(request, zod4(facilitySchema));
 		if (!form.valid) return fail(400, { form });
 		const saved = updateFacility(locals.db, params.id, form.data);

@@ -3,7 +3,7 @@ import { setError, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { scaleModelSchema } from '$lib/schemas/model';
 import { requireRole } from '$lib/server/guards';
-import { getModelFor, updateModel } from '$lib/server/models';
+import { getModelFor, updateModel, writableModel } from '$lib/server/models';
 import { STATUS_OF_REFUSAL } from '$lib/server/outcome';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -21,6 +21,8 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 export const actions: Actions = {
 	default: async ({ locals, params, request }) => {
 		const user = requireRole(locals, 'aerodynamicist');
+		const writable = writableModel(locals.db, user, params.id);
+		if (!writable.ok) error(404, { message: writable.message });
 		const form = await superValidate(request, zod4(scaleModelSchema));
 		if (!form.valid) return fail(400, { form });
 		const saved = updateModel(locals.db, user, params.id, form.data);

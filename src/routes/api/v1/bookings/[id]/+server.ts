@@ -1,12 +1,14 @@
 import { json } from '@sveltejs/kit';
 import { bookingChangeSchema } from '$lib/schemas/booking';
 import { readJson, refusalResponse } from '$lib/server/api';
-import { changeBooking } from '$lib/server/bookings';
-import { requireRole } from '$lib/server/guards';
+import { changeBooking, findBookingFor } from '$lib/server/bookings';
+import { requirePermission } from '$lib/server/guards';
 import type { RequestHandler } from './$types';
 
 export const PATCH: RequestHandler = async (event) => {
-	const user = requireRole(event.locals, 'operator', 'admin');
+	const user = requirePermission(event.locals, 'book-tunnel-time');
+	const found = findBookingFor(event.locals.db, user, event.params.id);
+	if (!found.ok) return refusalResponse(found);
 	const body = await readJson(event, bookingChangeSchema);
 	if (!body.ok) return body.response;
 	const changed = changeBooking(
@@ -20,7 +22,7 @@ export const PATCH: RequestHandler = async (event) => {
 };
 
 export const DELETE: RequestHandler = ({ locals, params, url }) => {
-	const user = requireRole(locals, 'operator', 'admin');
+	const user = requirePermission(locals, 'book-tunnel-time');
 	const cancelled = changeBooking(locals.db, user, params.id, { state: 'cancelled' }, url.origin);
 	return cancelled.ok ? new Response(null, { status: 204 }) : refusalResponse(cancelled);
 };

@@ -4,6 +4,7 @@ import { readJson, refusalResponse } from '$lib/server/api';
 import {
 	campaignResource,
 	deleteCampaign,
+	editableCampaign,
 	getCampaignFor,
 	updateCampaign
 } from '$lib/server/campaigns';
@@ -23,6 +24,8 @@ export const GET: RequestHandler = ({ locals, params }) => {
 
 export const PUT: RequestHandler = async (event) => {
 	const user = requireRole(event.locals, 'aerodynamicist');
+	const editable = editableCampaign(event.locals.db, user, event.params.id);
+	if (!editable.ok) return refusalResponse(editable);
 	const body = await readJson(event, campaignSchema);
 	if (!body.ok) return body.response;
 	const saved = updateCampaign(event.locals.db, user, event.params.id, body.data);

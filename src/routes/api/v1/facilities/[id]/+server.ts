@@ -14,6 +14,7 @@ export const GET: RequestHandler = ({ locals, params }) => {
 
 export const PUT: RequestHandler = async (event) => {
 	requireRole(event.locals, 'operator', 'admin');
+	if (!getFacility(event.locals.db, event.params.id)) error(404, { message: 'No such facility.' });
 	const body = await readJson(event, facilitySchema);
 	if (!body.ok) return body.response;
 	const saved = updateFacility(event.locals.db, event.params.id, body.data);

@@ -2,7 +2,7 @@ import { error, json } from '@sveltejs/kit';
 import { scaleModelSchema } from '$lib/schemas/model';
 import { readJson, refusalResponse } from '$lib/server/api';
 import { requireRole } from '$lib/server/guards';
-import { getModelFor, listAttachments, updateModel } from '$lib/server/models';
+import { getModelFor, listAttachments, updateModel, writableModel } from '$lib/server/models';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = ({ locals, params }) => {
@@ -14,6 +14,8 @@ export const GET: RequestHandler = ({ locals, params }) => {
 
 export const PUT: RequestHandler = async (event) => {
 	const user = requireRole(event.locals, 'aerodynamicist');
+	const writable = writableModel(event.locals.db, user, event.params.id);
+	if (!writable.ok) return refusalResponse(writable);
 	const body = await readJson(event, scaleModelSchema);
 	if (!body.ok) return body.response;
 	const saved = updateModel(event.locals.db, user, event.params.id, body.data);

@@ -3,10 +3,11 @@ import { message, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { diffRevisions } from '$lib/review/diff';
 import { decisionSchema } from '$lib/schemas/review';
+import { campaignActor } from '$lib/server/access';
 import { getCampaignFor } from '$lib/server/campaigns';
-import { requireRole, requireUser } from '$lib/server/guards';
+import { requirePermission, requireUser } from '$lib/server/guards';
 import { STATUS_OF_REFUSAL } from '$lib/server/outcome';
-import { decideRevision, getRevision } from '$lib/server/review';
+import { decideRevision, decisionAccess, getRevision } from '$lib/server/review';
 import { availableActions } from '$lib/workflow';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -21,10 +22,7 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 	const canDecide =
 		number === found.lastRevision &&
 		!revision.decision &&
-		availableActions(found.state, {
-			roles: user.roles,
-			isOwner: found.ownerId === user.id
-		}).includes('approve');
+		availableActions(found.state, campaignActor(user, found)).includes('approve');
 	return {
 		campaign: {
 			id: found.id,
@@ -37,7 +35,7 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 		previousNumber: previous?.number ?? null,
 		diff: previous ? diffRevisions(previous.snapshot, revision.snapshot) : null,
 		canDecide,
-		isOwnCampaign: found.ownerId === user.id,
+		isOwnCampaign: campaignActor(user, found).isOwner,
 		form: await superValidate(
 			{ revision: number, verdict: 'approve', summary: '', notes: [] },
 			zod4(decisionSchema),
@@ -48,7 +46,9 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 
 export const actions: Actions = {
 	decide: async ({ locals, params, request, url }) => {
-		const user = requireRole(locals, 'reviewer');
+		const user = requirePermission(locals, 'decide-campaigns');
+		const allowed = decisionAccess(locals.db, user, params.id);
+		if (!allowed.ok) error(STATUS_OF_REFUSAL[allowed.code], { message: allowed.message });
 		const form = await superValidate(request, zod4(decisionSchema));
 		if (!form.valid) return fail(400, { form });
 		const decided = decideRevision(locals.db, user, params.id, form.data, url.origin);

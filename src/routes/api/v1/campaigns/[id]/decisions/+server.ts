@@ -1,12 +1,14 @@
 import { json } from '@sveltejs/kit';
 import { decisionSchema } from '$lib/schemas/review';
 import { readJson, refusalResponse } from '$lib/server/api';
-import { requireRole } from '$lib/server/guards';
-import { decideRevision } from '$lib/server/review';
+import { requirePermission } from '$lib/server/guards';
+import { decideRevision, decisionAccess } from '$lib/server/review';
 import type { RequestHandler } from './$types';
 
 export const POST: RequestHandler = async (event) => {
-	const user = requireRole(event.locals, 'reviewer');
+	const user = requirePermission(event.locals, 'decide-campaigns');
+	const allowed = decisionAccess(event.locals.db, user, event.params.id);
+	if (!allowed.ok) return refusalResponse(allowed);
 	const body = await readJson(event, decisionSchema);
 	if (!body.ok) return body.response;
 	const decided = decideRevision(

@@ -1,8 +1,10 @@
-import { json } from '@sveltejs/kit';
+import { error, json } from '@sveltejs/kit';
 import { z } from 'zod';
 import { READINGS_MAX_BYTES } from '$lib/schemas/readings';
 import { apiError, fieldMessages, readBody, refusalResponse, tooLarge } from '$lib/server/api';
 import { attachmentStore } from '$lib/server/attachments';
+import { canUploadReadings } from '$lib/server/access';
+import { getCampaignFor } from '$lib/server/campaigns';
 import { requireUser } from '$lib/server/guards';
 import {
 	readingsListing,
@@ -27,6 +29,7 @@ const pageQuery = z.object({
 /** The current readings of the approved revision, a page at a time, with coverage. */
 export const GET: RequestHandler = ({ locals, params, url }) => {
 	const user = requireUser(locals);
+	if (!getCampaignFor(locals.db, user, params.id)) error(404, { message: 'No such campaign.' });
 	const page = pageQuery.safeParse(Object.fromEntries(url.searchParams));
 	if (!page.success)
 		return apiError(400, 'invalid', 'Bad paging parameters.', fieldMessages(page.error));
@@ -43,6 +46,10 @@ export const GET: RequestHandler = ({ locals, params, url }) => {
  */
 export const POST: RequestHandler = async ({ locals, params, request, url }) => {
 	const user = requireUser(locals);
+	const found = getCampaignFor(locals.db, user, params.id);
+	if (!found) error(404, { message: 'No such campaign.' });
+	if (!canUploadReadings(user, found))
+		return apiError(403, 'forbidden', 'You cannot send readings for this campaign.');
 	const mediaType = declaredMediaType(request.headers.get('content-type'));
 	if (!mediaType)
 		return apiError(

@@ -1,11 +1,11 @@
 import { json } from '@sveltejs/kit';
 import { refusalResponse } from '$lib/server/api';
-import { requireRole } from '$lib/server/guards';
+import { requirePermission } from '$lib/server/guards';
 import { submitCampaign } from '$lib/server/review';
 import type { RequestHandler } from './$types';
 
 export const POST: RequestHandler = ({ locals, params, url }) => {
-	const user = requireRole(locals, 'aerodynamicist');
+	const user = requirePermission(locals, 'draft-campaigns');
 	const submitted = submitCampaign(locals.db, user, params.id, url.origin);
 	return submitted.ok
 		? json({ revision: submitted.revision }, { status: 201 })

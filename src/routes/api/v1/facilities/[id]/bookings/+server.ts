@@ -4,7 +4,7 @@ import { bookingSchema } from '$lib/schemas/booking';
 import { apiError, fieldMessages, readJson, refusalResponse } from '$lib/server/api';
 import { createBooking, listBookings } from '$lib/server/bookings';
 import { getFacility } from '$lib/server/facilities';
-import { requireRole, requireUser } from '$lib/server/guards';
+import { requirePermission, requireUser } from '$lib/server/guards';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = ({ locals, params, url }) => {
@@ -18,7 +18,8 @@ export const GET: RequestHandler = ({ locals, params, url }) => {
 };
 
 export const POST: RequestHandler = async (event) => {
-	const user = requireRole(event.locals, 'operator', 'admin');
+	const user = requirePermission(event.locals, 'book-tunnel-time');
+	if (!getFacility(event.locals.db, event.params.id)) error(404, { message: 'No such facility.' });
 	const body = await readJson(event, bookingSchema);
 	if (!body.ok) return body.response;
 	const created = createBooking(

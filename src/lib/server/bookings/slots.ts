@@ -1,0 +1,167 @@
+import { asc, eq } from 'drizzle-orm';
+import {
+	ACTION_FOR_STATE,
+	bookingTransition,
+	type BookingAction,
+	type BookingStep
+} from '../../booking/workflow';
+import type { SessionUser } from '../../roles';
+import type { BookingChange, BookingInput } from '../../schemas/booking';
+import { canBook } from '../access';
+import type { Db } from '../db/open';
+import { booking, campaign } from '../db/schema';
+import { getFacility } from '../facilities';
+import { refuse, type Outcome } from '../outcome';
+import { slotProblem, when } from './conflicts';
+import { notifyBooking } from './notices';
+
+export type Booking = typeof booking.$inferSelect;
+
+/**
+ * The slot if the viewer may change bookings and it exists (of `facilityId`, when given): the
+ * check routes make before they read a request body.
+ */
+export function findBookingFor(
+	db: Db,
+	viewer: SessionUser,
+	bookingId: string,
+	facilityId?: string
+): Outcome<{ booking: Booking }> {
+	if (!canBook(viewer)) return refuse('forbidden', 'Only operators and admins change bookings.');
+	const b = db.select().from(booking).where(eq(booking.id, bookingId)).get();
+	if (!b || (facilityId && b.facilityId !== facilityId))
+		return refuse('not-found', 'No such booking.');
+	return { ok: true, booking: b };
+}
+
+export function createBooking(
+	db: Db,
+	viewer: SessionUser,
+	facilityId: string,
+	input: BookingInput,
+	origin: string,
+	now = Date.now()
+): Outcome<{ id: string }> {
+	if (!canBook(viewer)) return refuse('forbidden', 'Only operators and admins book tunnel time.');
+	return db.transaction(
+		(tx) => {
+			const f = getFacility(tx, facilityId);
+			if (!f) return refuse('not-found', 'No such facility.');
+			const c = tx.select().from(campaign).where(eq(campaign.id, input.campaignId)).get();
+			if (!c) return refuse('invalid', 'No such campaign.', 'campaignId');
+			if (!c.approvedRevisionId)
+				return refuse(
+					'conflict',
+					'Only a campaign with an approved revision can be booked.',
+					'campaignId'
+				);
+			if (c.facilityId !== facilityId)
+				return refuse('invalid', `That campaign is planned for another facility.`, 'campaignId');
+			const slot = { start: input.start.getTime(), end: input.end.getTime() };
+			const problem = slotProblem(tx, f, slot, now);
+			if (problem) return problem;
+			const { id } = tx
+				.insert(booking)
+				.values({
+					facilityId,
+					campaignId: c.id,
+					revisionId: c.approvedRevisionId,
+					start: input.start,
+					end: input.end,
+					note: input.note,
+					createdBy: viewer.id
+				})
+				.returning({ id: booking.id })
+				.get();
+			notifyBooking(
+				tx,
+				c,
+				`Booked: ${c.name}, ${when(input.start)}`,
+				`${f.name} is booked for “${c.name}” from ${when(input.start)} to ${when(input.end)}.`,
+				origin
+			);
+			return { ok: true as const, id };
+		},
+		{ behavior: 'immediate' }
+	);
+}
+
+/** The workflow steps a change asks for: a new state, a move, or both. */
+function stepsOf(b: Booking, change: BookingChange): BookingAction[] {
+	const steps: BookingAction[] = [];
+	if (change.state && change.state !== b.state) steps.push(ACTION_FOR_STATE[change.state]);
+	if (change.start || change.end) steps.push('move');
+	return steps;
+}
+
+/** Moves a slot, changes its state (confirm, complete, cancel) or its note. */
+export function changeBooking(
+	db: Db,
+	viewer: SessionUser,
+	bookingId: string,
+	change: BookingChange,
+	origin: string,
+	now = Date.now()
+): Outcome {
+	if (!canBook(viewer)) return refuse('forbidden', 'Only operators and admins change bookings.');
+	return db.transaction(
+		(tx) => {
+			const b = tx.select().from(booking).where(eq(booking.id, bookingId)).get();
+			if (!b) return refuse('not-found', 'No such booking.');
+			const f = getFacility(tx, b.facilityId)!;
+			const c = tx.select().from(campaign).where(eq(campaign.id, b.campaignId)).get()!;
+			const steps = stepsOf(b, change);
+			const refused = steps
+				.map((action): BookingStep => bookingTransition(b.state, action, viewer))
+				.find((step) => !step.ok);
+			if (refused) return refused;
+			const moved = steps.includes('move');
+			const slot = {
+				start: (change.start ?? b.start).getTime(),
+				end: (change.end ?? b.end).getTime()
+			};
+			if (moved) {
+				const problem = slotProblem(tx, f, slot, now, b.id);
+				if (problem) return problem;
+			}
+			tx.update(booking)
+				.set({
+					start: new Date(slot.start),
+					end: new Date(slot.end),
+					state: change.state ?? b.state,
+					note: change.note ?? b.note,
+					updatedAt: new Date(now)
+				})
+				.where(eq(booking.id, b.id))
+				.run();
+			if (moved)
+				notifyBooking(
+					tx,
+					c,
+					`Moved: ${c.name}, now ${when(new Date(slot.start))}`,
+					`The ${f.name} slot for “${c.name}” moved to ${when(new Date(slot.start))} – ${when(new Date(slot.end))}.`,
+					origin
+				);
+			if (change.state === 'cancelled')
+				notifyBooking(
+					tx,
+					c,
+					`Cancelled: ${c.name}, ${when(b.start)}`,
+					`The ${f.name} slot for “${c.name}” on ${when(b.start)} is cancelled.`,
+					origin
+				);
+			return { ok: true as const };
+		},
+		{ behavior: 'immediate' }
+	);
+}
+
+/** A campaign's slots, for its own page. */
+export function campaignSlots(db: Db, campaignId: string) {
+	return db
+		.select()
+		.from(booking)
+		.where(eq(booking.campaignId, campaignId))
+		.orderBy(asc(booking.start))
+		.all();
+}
