@@ -422,7 +422,9 @@ function problem(line: AccessLine, caller: Caller, answer: Answer): string | nul
 }
 
 async function check(line: AccessLine, expect: ExpectStatic) {
-	const team: Team = RECORDS[lineRecord(line) ?? 'facility'] ?? 'Alder';
+	const record = lineRecord(line);
+	// A record without a team, or none, is judged as if Alder Motorsport's.
+	const team: Team = (record && RECORDS[record]) || 'Alder';
 	const run = async (caller: Caller) => {
 		const answer = await call(line, credentialFor(caller, team));
 		return { caller, answer, wrong: problem(line, caller, answer) };
