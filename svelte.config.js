@@ -8,7 +8,24 @@ const config = {
 	kit: {
 		adapter: adapter(),
 		// Auth.js leaves CSRF to SvelteKit's origin check; keep it on.
-		csrf: { trustedOrigins: [] }
+		csrf: { trustedOrigins: [] },
+		// Scripts run only with SvelteKit's per-response nonce (hashes on prerendered pages). Styles
+		// may be inline: Svelte writes style attributes for positions and colours of the pictures.
+		csp: {
+			mode: 'auto',
+			directives: {
+				'default-src': ['self'],
+				'script-src': ['self'],
+				'style-src': ['self', 'unsafe-inline'],
+				'img-src': ['self', 'data:', 'blob:'],
+				'font-src': ['self'],
+				'connect-src': ['self'],
+				'object-src': ['none'],
+				'base-uri': ['self'],
+				'form-action': ['self'],
+				'frame-ancestors': ['none']
+			}
+		}
 	}
 };
 

@@ -43,13 +43,12 @@ export async function startSeededApp({
 
 	const port = await freePort();
 	const baseUrl = `http://127.0.0.1:${port}`;
-	const server = spawn(process.execPath, ['build'], {
+	const server = spawn(process.execPath, ['scripts/serve.js'], {
 		env: {
 			...env,
 			HOST: '127.0.0.1',
 			PORT: String(port),
 			ORIGIN: baseUrl,
-			BODY_SIZE_LIMIT: '25M',
 			AUTH_SECRET: randomBytes(32).toString('base64url')
 		},
 		stdio: ['ignore', quiet ? 'ignore' : 'inherit', 'inherit']

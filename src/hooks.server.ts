@@ -1,8 +1,7 @@
 import { redirect, type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
-import { apiError, MAX_REQUEST_BODY_BYTES, tooLarge, withHeaders } from '$lib/server/api';
-import { ATTACHMENT_MAX_BYTES } from '$lib/schemas/model';
-import { READINGS_MAX_BYTES } from '$lib/schemas/readings';
+import { apiError, tooLarge } from '$lib/server/api';
+import { bodyLimitOf } from '$lib/server/body-limits';
 import { authHandle } from '$lib/server/auth';
 import { authenticateBearer } from '$lib/server/auth/bearer';
 import { retryAfterSeconds, throttleKeys } from '$lib/server/auth/throttle';
@@ -52,22 +51,12 @@ const shapeApiErrors: Handle = async ({ event, resolve }) => {
 };
 
 /**
- * Routes that take files, with the largest body each accepts; the file's own limit is checked
- * again where it is read. Room is left for the multipart envelope.
- */
-const UPLOAD_LIMITS = new Map([
-	['/(app)/models/[id]', ATTACHMENT_MAX_BYTES + 256 * 1024],
-	['/(app)/campaigns/[id]', READINGS_MAX_BYTES + 256 * 1024],
-	['/api/v1/campaigns/[id]/readings', READINGS_MAX_BYTES]
-]);
-
-/**
  * Refuses a declared body over the limit before anything reads it. adapter-node's own
  * BODY_SIZE_LIMIT also stops bodies sent without a length, mid-stream.
  */
 const rejectOversizedBodies: Handle = ({ event, resolve }) => {
 	const declared = Number(event.request.headers.get('content-length') ?? 0);
-	const limit = UPLOAD_LIMITS.get(event.route.id ?? '') ?? MAX_REQUEST_BODY_BYTES;
+	const limit = bodyLimitOf(event.route.id);
 	return declared > limit ? tooLarge(limit) : resolve(event);
 };
 
@@ -115,18 +104,8 @@ const sendSignedOutToSignIn: Handle = ({ event, resolve }) => {
 	return resolve(event);
 };
 
-const SECURITY_HEADERS = {
-	'x-content-type-options': 'nosniff',
-	'referrer-policy': 'same-origin',
-	'x-frame-options': 'DENY'
-};
-
-const setSecurityHeaders: Handle = async ({ event, resolve }) =>
-	withHeaders(await resolve(event), SECURITY_HEADERS);
-
 export const handle = sequence(
 	attachDatabase,
-	setSecurityHeaders,
 	shapeApiErrors,
 	rejectOversizedBodies,
 	throttleCredentialPosts,

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD } from '../../scripts/demo-scenario';
-import { url } from './browser';
+import { DEMO_READINGS } from '../../scripts/demo-scenario';
+import { READINGS_MAX_BYTES } from '../../src/lib/schemas/readings';
+import { sessionCookie, url } from './browser';
 
 describe('sign-in cannot be turned against the user', () => {
 	it('answers a wrong password posted straight to the credentials endpoint with the refusal, not 500', async () => {
@@ -21,16 +22,7 @@ describe('sign-in cannot be turned against the user', () => {
 
 	it('sends a signed-in user only to paths of the app', async () => {
 		const origin = new URL(url('/')).origin;
-		const signIn = await fetch(url('/auth/callback/credentials'), {
-			method: 'POST',
-			redirect: 'manual',
-			headers: { 'content-type': 'application/x-www-form-urlencoded', origin },
-			body: new URLSearchParams({ email: 'reviewer@demo.test', password: DEMO_PASSWORD })
-		});
-		const cookie = signIn.headers
-			.getSetCookie()
-			.map((c) => c.split(';')[0])
-			.join('; ');
+		const cookie = await sessionCookie('reviewer@demo.test');
 		for (const target of [
 			'https://elsewhere.example',
 			'//elsewhere.example',
@@ -43,5 +35,60 @@ describe('sign-in cannot be turned against the user', () => {
 			expect(answer.status).toBe(303);
 			expect(new URL(answer.headers.get('location')!, origin).origin).toBe(origin);
 		}
+	});
+});
+
+describe('the production start', () => {
+	const SHARED = [
+		'x-content-type-options',
+		'referrer-policy',
+		'x-frame-options',
+		'cross-origin-opener-policy',
+		'permissions-policy',
+		'content-security-policy'
+	];
+
+	it('puts the security headers on pages, API answers and static files alike', async () => {
+		for (const path of ['/signin', '/api/v1/me', '/favicon.svg', '/no-such-page']) {
+			const answer = await fetch(url(path), { redirect: 'manual' });
+			for (const name of SHARED)
+				expect(answer.headers.get(name), `${name} on ${path}`).toBeTruthy();
+			// The app is served over http here, where HSTS would be meaningless.
+			expect(answer.headers.get('strict-transport-security')).toBeNull();
+		}
+		const page = await fetch(url('/signin'));
+		const csp = page.headers.get('content-security-policy')!;
+		const scripts = csp.split(';').find((d) => d.trim().startsWith('script-src'))!;
+		expect(scripts).toMatch(/'nonce-[^']+'/);
+		expect(scripts).not.toContain('unsafe-inline');
+		const nonce = /'nonce-([^']+)'/.exec(scripts)![1]!;
+		// Every inline script the page carries is one the policy lets run.
+		const body = await page.text();
+		const inline = [...body.matchAll(/<script(?![^>]*\ssrc=)([^>]*)>/g)].map((m) => m[1]);
+		expect(inline.length).toBeGreaterThan(0);
+		for (const attributes of inline) expect(attributes).toContain(`nonce="${nonce}"`);
+	});
+
+	it('reads bodies up to the upload limit and refuses larger ones with the structured error', async () => {
+		const cookie = await sessionCookie('operator@demo.test');
+		const campaigns = await (await fetch(url('/api/v1/campaigns'), { headers: { cookie } })).json();
+		const id = campaigns.campaigns.find(
+			(c: { name: string }) => c.name === DEMO_READINGS.campaign
+		).id;
+		const send = (body: string) =>
+			fetch(url(`/api/v1/campaigns/${id}/readings`), {
+				method: 'POST',
+				headers: { cookie, 'content-type': 'text/csv', origin: new URL(url('/')).origin },
+				body
+			});
+		// 2 MB, four times adapter-node's default limit: read and refused for its content.
+		const rows = 'point,kind,value\n' + 'nowhere,pressure,1\n'.repeat(110_000);
+		const read = await send(rows);
+		expect(read.status).toBe(400);
+		expect((await read.json()).error.code).toBeTruthy();
+
+		const over = await send('x'.repeat(READINGS_MAX_BYTES + 1));
+		expect(over.status).toBe(413);
+		expect((await over.json()).error).toMatchObject({ code: 'too-large' });
 	});
 });

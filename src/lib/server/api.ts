@@ -130,21 +130,3 @@ export function calculationEndpoint<S extends z.ZodType>(
 		return calculationResponse(() => compute(body.data), keys);
 	};
 }
-
-/**
- * The response with `headers` added where it has none of its own. Some responses come with
- * immutable headers (Auth.js's redirects are made with Response.redirect); those are copied
- * into a new response rather than failing the request.
- */
-export function withHeaders(response: Response, headers: Record<string, string>): Response {
-	const missing = Object.entries(headers).filter(([name]) => !response.headers.has(name));
-	if (!missing.length) return response;
-	try {
-		for (const [name, value] of missing) response.headers.set(name, value);
-		return response;
-	} catch {
-		const copy = new Response(response.body, response);
-		for (const [name, value] of missing) copy.headers.set(name, value);
-		return copy;
-	}
-}

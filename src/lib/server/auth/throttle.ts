@@ -3,22 +3,32 @@ import type { Db } from '../db/open';
 import { signInThrottle } from '../db/schema';
 
 /**
- * Failed sign-ins are counted per account and per client address. Past a free allowance each
- * further failure locks the key for twice as long as the last, up to a ceiling, so guessing
- * slows to a crawl while a person who mistyped twice is never held up.
+ * Failed sign-ins are counted per account-and-address pair, and per address over all accounts
+ * with a far larger allowance (OWASP Authentication Cheat Sheet, "Login Throttling"; OWASP
+ * Blocking Brute Force Attacks). Past a free allowance each further failure locks the key for
+ * twice as long as the last, up to a ceiling: guessing one account from one place slows to a
+ * crawl, spraying many accounts from one place is capped, and nobody elsewhere can lock a user
+ * out of an account by failing on purpose.
  */
 export const THROTTLE = {
 	window_ms: 15 * 60_000,
-	freeFailuresPerAccount: 5,
-	freeFailuresPerAddress: 20,
+	freeFailuresPerPair: 5,
+	freeFailuresPerAddress: 100,
 	firstLock_ms: 30_000,
 	maxLock_ms: 15 * 60_000
 } as const;
 
-export type ThrottleKeys = { account: string; address: string };
+export type ThrottleKeys = { pair: string; address: string };
 
+/**
+ * The client address is what adapter-node reports: the socket's peer, or the proxy's header
+ * when the deployment names it (ADDRESS_HEADER, XFF_DEPTH).
+ */
 export function throttleKeys(email: string, clientAddress: string): ThrottleKeys {
-	return { account: `account:${email.trim().toLowerCase()}`, address: `address:${clientAddress}` };
+	return {
+		pair: `pair:${email.trim().toLowerCase()}|${clientAddress}`,
+		address: `address:${clientAddress}`
+	};
 }
 
 /** Seconds until a sign-in for these keys may be tried again; 0 when it may be tried now. */
@@ -26,7 +36,7 @@ export function retryAfterSeconds(db: Db, keys: ThrottleKeys, now = Date.now()):
 	const rows = db
 		.select({ lockedUntil: signInThrottle.lockedUntil })
 		.from(signInThrottle)
-		.where(inArray(signInThrottle.key, [keys.account, keys.address]))
+		.where(inArray(signInThrottle.key, [keys.pair, keys.address]))
 		.all();
 	const until = Math.max(0, ...rows.map((r) => r.lockedUntil?.getTime() ?? 0));
 	return until > now ? Math.ceil((until - now) / 1000) : 0;
@@ -35,7 +45,7 @@ export function retryAfterSeconds(db: Db, keys: ThrottleKeys, now = Date.now()):
 export function recordFailedSignIn(db: Db, keys: ThrottleKeys, now = Date.now()): void {
 	db.transaction((tx) => {
 		for (const [key, free] of [
-			[keys.account, THROTTLE.freeFailuresPerAccount],
+			[keys.pair, THROTTLE.freeFailuresPerPair],
 			[keys.address, THROTTLE.freeFailuresPerAddress]
 		] as const) {
 			const row = tx.select().from(signInThrottle).where(eq(signInThrottle.key, key)).get();
@@ -58,7 +68,7 @@ export function recordFailedSignIn(db: Db, keys: ThrottleKeys, now = Date.now())
 	});
 }
 
-/** A correct password clears the account's count; the address keeps its own. */
+/** A correct password clears the pair's count; the address keeps its own. */
 export function recordSuccessfulSignIn(db: Db, keys: ThrottleKeys): void {
-	db.delete(signInThrottle).where(eq(signInThrottle.key, keys.account)).run();
+	db.delete(signInThrottle).where(eq(signInThrottle.key, keys.pair)).run();
 }
