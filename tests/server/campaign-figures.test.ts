@@ -8,6 +8,7 @@ import type { SessionUser } from '../../src/lib/roles';
 import { campaignSchema, matrixPointCount } from '../../src/lib/schemas/campaign';
 import { POST as matrixApi } from '../../src/routes/api/v1/calc/matrix/+server';
 import { POST as similarityApi } from '../../src/routes/api/v1/calc/similarity/+server';
+import { requestEvent } from './request-event';
 
 const viewer: SessionUser = {
 	id: 'u',
@@ -17,14 +18,7 @@ const viewer: SessionUser = {
 	teams: []
 };
 const post = async (handler: (e: RequestEvent) => unknown, body: unknown) => {
-	const request = new Request('http://localhost/api', {
-		method: 'POST',
-		body: JSON.stringify(body)
-	});
-	const response = (await handler({
-		request,
-		locals: { user: viewer }
-	} as unknown as RequestEvent)) as Response;
+	const response = (await handler(requestEvent({ user: viewer, json: body }))) as Response;
 	expect(response.status).toBe(200);
 	return response.json();
 };
