@@ -59,11 +59,12 @@ export function requestEvent(init: EventInit = {}): RequestEvent {
 		headers,
 		body
 	});
-	const locals: App.Locals = {
-		db: init.db as Db,
+	// Auth.js's own functions in locals are left out: the user is given as hooks would resolve it.
+	const locals = {
+		db: init.db,
 		user: init.user ?? null,
 		apiToken: init.apiToken ?? null
-	};
+	} as App.Locals;
 	return {
 		request,
 		url: new URL(request.url),
