@@ -20,6 +20,7 @@ import * as tokenItem from '../../src/routes/api/v1/tokens/[id]/+server';
 import * as tokens from '../../src/routes/api/v1/tokens/+server';
 import { callRoute as call } from './call-route';
 import { campaignWorld } from './campaign-fixtures';
+import { requestEvent } from './request-event';
 import { tempDb } from './temp-db';
 
 const HOUR_MS = 3600_000;
@@ -195,18 +196,15 @@ async function throughBearer(
 	},
 	resolve: Resolve = () => new Response('resolved')
 ) {
-	const request = new Request(`http://localhost${init.path}`, {
-		method: init.method ?? 'GET',
+	const event = requestEvent({
+		db,
+		method: init.method,
+		path: init.path,
+		routeId: init.routeId,
+		params: init.params,
 		headers: init.authorization ? { authorization: init.authorization } : {}
 	});
-	const locals = { db, user: null, apiToken: null } as unknown as App.Locals;
-	const event = {
-		request,
-		url: new URL(request.url),
-		route: { id: init.routeId },
-		params: init.params ?? {},
-		locals
-	} as unknown as RequestEvent;
+	const { locals } = event;
 	let resolved = false;
 	let response: Response;
 	try {

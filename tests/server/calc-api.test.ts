@@ -6,6 +6,7 @@ import { POST as atmosphere } from '../../src/routes/api/v1/calc/atmosphere/+ser
 import { POST as blockage } from '../../src/routes/api/v1/calc/blockage/+server';
 import { POST as matrix } from '../../src/routes/api/v1/calc/matrix/+server';
 import { POST as similarity } from '../../src/routes/api/v1/calc/similarity/+server';
+import { requestEvent } from './request-event';
 
 const viewer: SessionUser = {
 	id: 'u1',
@@ -20,12 +21,12 @@ function post(
 	body: unknown,
 	user: SessionUser | null = viewer
 ) {
-	const request = new Request('http://localhost/api', {
-		method: 'POST',
-		headers: { 'content-type': 'application/json' },
-		body: typeof body === 'string' ? body : JSON.stringify(body)
-	});
-	return handler({ request, locals: { user } } as unknown as RequestEvent) as Promise<Response>;
+	const event = requestEvent(
+		typeof body === 'string'
+			? { user, raw: body, headers: { 'content-type': 'application/json' } }
+			: { user, json: body }
+	);
+	return handler(event) as Promise<Response>;
 }
 
 const sea = { model: 'isa', geopotentialAltitude: 0 };

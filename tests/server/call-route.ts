@@ -1,20 +1,18 @@
-import { isHttpError, type RequestEvent } from '@sveltejs/kit';
+import { isHttpError } from '@sveltejs/kit';
 import type { SessionUser } from '../../src/lib/roles';
 import type { Db } from '../../src/lib/server/db/open';
+import { requestEvent, type EventInit } from './request-event';
 
 // Each route's handler takes its own typed event; the tests build one event shape for all.
 export type Handler = (event: never) => unknown;
 
-export type RouteCall = {
-	method?: string;
+export type RouteCall = Pick<
+	EventInit,
+	'method' | 'raw' | 'headers' | 'params' | 'apiToken' | 'routeId'
+> & {
 	/** A value sent as JSON. */
 	body?: unknown;
-	/** A body sent as it is, such as a CSV file. */
-	raw?: BodyInit;
-	headers?: Record<string, string>;
-	params?: Record<string, string>;
 	search?: string;
-	apiToken?: App.Locals['apiToken'];
 };
 
 /**
@@ -25,21 +23,12 @@ export async function callRoute(
 	handler: Handler,
 	db: Db,
 	user: SessionUser | null,
-	init: RouteCall = {}
+	{ body, search, ...init }: RouteCall = {}
 ) {
-	const hasBody = init.raw !== undefined || init.body !== undefined;
-	const request = new Request(`http://localhost/api${init.search ?? ''}`, {
-		method: init.method ?? (hasBody ? 'POST' : 'GET'),
-		body: init.raw ?? (init.body === undefined ? undefined : JSON.stringify(init.body)),
-		headers: init.headers
-	});
 	try {
-		const response = (await handler({
-			request,
-			url: new URL(request.url),
-			params: init.params ?? {},
-			locals: { db, user, apiToken: init.apiToken ?? null }
-		} as unknown as RequestEvent as never)) as Response;
+		const response = (await handler(
+			requestEvent({ ...init, db, user, json: body, path: `/api${search ?? ''}` }) as never
+		)) as Response;
 		const text = await response.text();
 		const lines = response.headers.get('content-type') === 'application/x-ndjson';
 		return {

@@ -61,3 +61,32 @@ describe('the speed-unit migration', () => {
 		).toBe('mph');
 	});
 });
+
+describe('the migration that drops the unused Auth.js adapter tables', () => {
+	it('keeps every user with the columns the app reads, and drops the provider links', () => {
+		const { db, next } = databaseBefore('drop_unused_auth_tables');
+		db.exec(`
+			insert into user (id, name, email, email_verified, image, password_hash, active, session_version)
+				values ('u', 'Ada', 'u@example.org', 1, 'a.png', 'hash', 0, 3);
+			insert into account (user_id, type, provider, provider_account_id)
+				values ('u', 'oauth', 'somewhere', 'x');
+			insert into user_role (user_id, role) values ('u', 'admin');
+		`);
+		next();
+		expect(db.prepare('select * from user').all()).toEqual([
+			{
+				id: 'u',
+				name: 'Ada',
+				email: 'u@example.org',
+				password_hash: 'hash',
+				active: 0,
+				session_version: 3,
+				created_at: expect.any(Number)
+			}
+		]);
+		expect(db.prepare('select role from user_role').all()).toEqual([{ role: 'admin' }]);
+		expect(
+			db.prepare("select name from sqlite_master where type = 'table' and name = 'account'").all()
+		).toEqual([]);
+	});
+});

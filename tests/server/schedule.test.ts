@@ -7,6 +7,7 @@ import { facility } from '../../src/lib/server/db/schema';
 import { upcomingSchedule } from '../../src/lib/server/schedule';
 import { load } from '../../src/routes/(app)/operations/+page.server';
 import { approvedCampaign, approvedCampaignWorld } from './campaign-fixtures';
+import { requestEvent } from './request-event';
 import { tempDb } from './temp-db';
 
 const ORIGIN = 'http://tunnelwright.test';
@@ -132,9 +133,10 @@ describe('the operator’s schedule', () => {
 		const { db, w } = twoTunnels();
 		const open = (user: typeof w.aeroA) => {
 			try {
-				return load({ locals: { db, user, apiToken: null } } as unknown as Parameters<
-					typeof load
-				>[0]) as { weeks: number; schedule: unknown[] };
+				return load(requestEvent({ db, user }) as Parameters<typeof load>[0]) as {
+					weeks: number;
+					schedule: unknown[];
+				};
 			} catch (thrown) {
 				if (isHttpError(thrown)) return thrown.status;
 				throw thrown;

@@ -7,6 +7,9 @@ import { z } from 'zod';
 export const API_TOKEN_SCOPES = ['readings:write', 'readings:read', 'campaigns:read'] as const;
 export type ApiTokenScope = (typeof API_TOKEN_SCOPES)[number];
 
+/** Where a token stands; only an active one signs requests. */
+export type ApiTokenState = 'active' | 'expired' | 'revoked';
+
 export const API_TOKEN_SCOPE_LABELS: Record<ApiTokenScope, string> = {
 	'readings:write': 'Send readings',
 	'readings:read': 'Read readings and coverage',

@@ -153,6 +153,9 @@ export const facilitySchema = z
 
 export type FacilityInput = z.infer<typeof facilitySchema>;
 
+/** A stored facility as pages list it. */
+export type FacilityListing = FacilityInput & { id: string };
+
 /** A new facility's starting values: a closed section with the usual limits for its kind. */
 export function facilityDefaults(): FacilityInput {
 	const limits = DEFAULT_BLOCKAGE_LIMITS.closed;

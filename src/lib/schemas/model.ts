@@ -34,6 +34,9 @@ export const scaleModelSchema = z
 
 export type ScaleModelInput = z.infer<typeof scaleModelSchema>;
 
+/** A stored model as pages list it, with its owning team's name. */
+export type ScaleModelListing = ScaleModelInput & { id: string; teamName: string };
+
 export const ATTACHMENT_MAX_BYTES = 10 * 1024 * 1024;
 export const ATTACHMENT_TYPES = [
 	'application/pdf',

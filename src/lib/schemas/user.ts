@@ -33,10 +33,12 @@ export const invitationSchema = z.object({
 	teamIds: z.array(z.string().min(1)).min(1, { error: 'Put the account in at least one team.' })
 });
 
-export const roleAssignmentSchema = z.object({
-	userId: z.string().min(1),
-	roles: rolesField
-});
+const userIdField = z.string().min(1, { error: 'No account given.' });
+
+export const roleAssignmentSchema = z.object({ userId: userIdField, roles: rolesField });
+
+/** Deactivating, reactivating, or sending a new one-time link: the account is all it takes. */
+export const accountActionSchema = z.object({ userId: userIdField });
 
 export const setPasswordSchema = z
 	.object({ password: passwordField, confirm: z.string() })
@@ -47,3 +49,6 @@ export const setPasswordSchema = z
 
 export type SignIn = z.infer<typeof signInSchema>;
 export type Invitation = z.infer<typeof invitationSchema>;
+
+/** What the people page says after an account change, with the one-time link when there is one. */
+export type AdminNote = { text: string; link?: string; email?: string };

@@ -4,7 +4,8 @@ import {
 	API_TOKEN_MAX_LIFETIME_DAYS,
 	API_TOKEN_SCOPES,
 	type ApiTokenInput,
-	type ApiTokenScope
+	type ApiTokenScope,
+	type ApiTokenState
 } from '../schemas/api-token';
 import type { Db } from './db/open';
 import { apiToken, user } from './db/schema';
@@ -17,8 +18,6 @@ export const API_TOKEN_PREFIX = 'twt_';
 /** lastUsedAt only needs to say roughly when; a busy client must not write on every call. */
 const LAST_USED_RESOLUTION_MS = 60_000;
 const DAY_MS = 86_400_000;
-
-export type ApiTokenState = 'active' | 'expired' | 'revoked';
 
 export type ApiTokenListing = {
 	id: string;

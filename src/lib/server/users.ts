@@ -11,7 +11,8 @@ import { refuse, type Outcome } from './outcome';
 
 export type UserListing = SessionUser & { active: boolean; hasPassword: boolean; createdAt: Date };
 
-const INVITATION_LIFETIME_MS = 7 * 24 * 3600_000;
+export const INVITATION_LIFETIME_DAYS = 7;
+const INVITATION_LIFETIME_MS = INVITATION_LIFETIME_DAYS * 24 * 3600_000;
 
 function rolesAndTeams(db: Db, userIds: string[]) {
 	const roles = db.select().from(userRole).where(inArray(userRole.userId, userIds)).all();

@@ -5,9 +5,9 @@ import { scaleDiverging, scaleLinear } from 'd3-scale';
  * the caution tone, zero is the panel itself. Mixing theme variables in the browser keeps the
  * maps right in light, dark and print without a second palette.
  */
-const BELOW = 'var(--tw-accent)';
-const ABOVE = 'var(--tw-caution)';
-const MIDDLE = 'var(--tw-panel)';
+const BELOW = 'var(--tnw-accent)';
+const ABOVE = 'var(--tnw-caution)';
+const MIDDLE = 'var(--tnw-panel)';
 
 // About eight labelled steps across the bar; contour lines follow the same steps.
 const STEP_COUNT = 8;
@@ -44,11 +44,11 @@ export function divergingScale(values: Iterable<number | null>): ColourScale {
 
 /** Categorical line colours from the theme, told apart by dash and marker as well. */
 export const SERIES_COLOURS = [
-	'var(--tw-accent)',
-	'var(--tw-caution)',
-	'var(--tw-good)',
-	'var(--tw-ink-soft)',
-	'var(--tw-limit)'
+	'var(--tnw-accent)',
+	'var(--tnw-caution)',
+	'var(--tnw-good)',
+	'var(--tnw-ink-soft)',
+	'var(--tnw-limit)'
 ] as const;
 
 /** A shade from the accent towards the caution tone, for ordered series such as probe rows. */

@@ -1,10 +1,8 @@
-import { DrizzleAdapter } from '@auth/drizzle-adapter';
 import { CredentialsSignin, SvelteKitAuth } from '@auth/sveltekit';
 import Credentials from '@auth/sveltekit/providers/credentials';
 import { env } from '$env/dynamic/private';
 import { signInSchema } from '../../schemas/user';
 import { getDb } from '../db';
-import { account, user } from '../db/schema';
 import { storedSecret } from '../settings';
 import { checkCredentials, type SignInRefusal } from './credentials';
 
@@ -24,7 +22,6 @@ export const {
 } = SvelteKitAuth(async (event) => {
 	const db = getDb();
 	return {
-		adapter: DrizzleAdapter(db, { usersTable: user, accountsTable: account }),
 		secret: env.AUTH_SECRET || storedSecret(db, 'auth-secret'),
 		trustHost: true,
 		session: { strategy: 'jwt', maxAge: SESSION_MAX_AGE_S },

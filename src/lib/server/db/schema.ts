@@ -8,7 +8,6 @@ import {
 	text,
 	uniqueIndex
 } from 'drizzle-orm/sqlite-core';
-import type { AdapterAccountType } from '@auth/sveltekit/adapters';
 import { ROLES, TEAM_KINDS } from '../../roles';
 import { MODEL_KINDS, SECTION_KINDS } from '../../calc/kinds';
 import { DEFAULT_TUNNEL_SHAPE_FACTOR } from '../../calc/blockage';
@@ -29,40 +28,17 @@ const createdAt = () =>
 		.notNull()
 		.default(sql`(unixepoch('subsec') * 1000)`);
 
-/** Users, in the column shape @auth/drizzle-adapter expects, plus our own columns. */
+/** People who sign in; Auth.js keeps no table of its own, as sessions are signed tokens. */
 export const user = sqliteTable('user', {
 	id: id(),
 	name: text('name'),
 	email: text('email').notNull().unique(),
-	emailVerified: integer('email_verified', { mode: 'timestamp_ms' }),
-	image: text('image'),
 	passwordHash: text('password_hash'),
 	active: integer('active', { mode: 'boolean' }).notNull().default(true),
 	/** Bumped to end every session of the user at once (deactivation, password change). */
 	sessionVersion: integer('session_version').notNull().default(1),
 	createdAt: createdAt()
 });
-
-/** Linked sign-in providers (Auth.js); unused by password sign-in but kept for the adapter. */
-export const account = sqliteTable(
-	'account',
-	{
-		userId: text('user_id')
-			.notNull()
-			.references(() => user.id, { onDelete: 'cascade' }),
-		type: text('type').$type<AdapterAccountType>().notNull(),
-		provider: text('provider').notNull(),
-		providerAccountId: text('provider_account_id').notNull(),
-		refresh_token: text('refresh_token'),
-		access_token: text('access_token'),
-		expires_at: integer('expires_at'),
-		token_type: text('token_type'),
-		scope: text('scope'),
-		id_token: text('id_token'),
-		session_state: text('session_state')
-	},
-	(t) => [primaryKey({ columns: [t.provider, t.providerAccountId] })]
-);
 
 export const userRole = sqliteTable(
 	'user_role',

@@ -7,6 +7,7 @@ import { createMailTransport, DEFAULT_MAIL_FROM, type MailTransport } from './tr
 export { enqueueMail, listOutbox, retryMail, type OutboxEntry } from './outbox';
 export { listCaughtMail, type CaughtMessage } from './fake-smtp';
 export { MAX_ATTEMPTS } from './delivery';
+export { accountLink, mailAccountLink } from './account-links';
 
 type Running = { transport: MailTransport; catching: boolean };
 
