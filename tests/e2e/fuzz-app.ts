@@ -2,6 +2,7 @@
  * The fuzz's own app instance and its client: sessions without a browser, one request at a
  * time with its wall time, and the verdict on each answer.
  */
+import { request as httpRequest } from 'node:http';
 import { DEMO_PASSWORD } from '../../scripts/demo-scenario';
 
 export const ACTORS = ['aero', 'reviewer', 'operator', 'admin', 'anonymous'] as const;
@@ -63,41 +64,56 @@ export async function awaitRecovery(baseUrl: string): Promise<void> {
 
 export type Sent = { status: number; ms: number; mediaType: string; text: string };
 
-export async function send(
+/**
+ * One request on a connection of its own (node:http without keep-alive), so a connection the
+ * app leaves in a bad state is blamed on the request that did it, not on the next one.
+ */
+export function send(
 	url: URL,
 	init: { method: string; headers: Record<string, string>; body?: Uint8Array }
 ): Promise<Sent> {
 	const started = performance.now();
-	try {
-		const response = await fetch(url, {
+	const body = init.method === 'GET' ? undefined : init.body;
+	return new Promise((resolve) => {
+		const done = (status: number, mediaType: string, text: string) =>
+			resolve({ status, ms: performance.now() - started, mediaType, text });
+		const request = httpRequest(url, {
 			method: init.method,
-			headers: init.headers,
-			body: init.body && init.method !== 'GET' ? (init.body as BodyInit) : undefined,
-			redirect: 'manual',
-			signal: AbortSignal.timeout(STALLED_MS)
+			agent: false,
+			headers: { ...init.headers, ...(body ? { 'content-length': String(body.byteLength) } : {}) },
+			timeout: STALLED_MS
 		});
-		const text = await response.text();
-		return {
-			status: response.status,
-			ms: performance.now() - started,
-			mediaType: (response.headers.get('content-type') ?? '').split(';')[0]!.trim(),
-			text
-		};
-	} catch (thrown) {
-		const stalled = thrown instanceof DOMException && thrown.name === 'TimeoutError';
-		return {
-			status: stalled ? 0 : -1,
-			ms: performance.now() - started,
-			mediaType: '',
-			text: String(thrown)
-		};
-	}
+		request.on('timeout', () => {
+			request.destroy();
+			done(0, '', `no answer within ${STALLED_MS} ms`);
+		});
+		request.on('error', (error: NodeJS.ErrnoException) =>
+			done(-1, '', `${error.code}: ${error.message}`)
+		);
+		request.on('response', (response) => {
+			const chunks: Buffer[] = [];
+			response.on('data', (chunk: Buffer) => chunks.push(chunk));
+			response.on('error', (error: NodeJS.ErrnoException) =>
+				done(-1, '', `${error.code}: ${error.message}`)
+			);
+			response.on('end', () =>
+				done(
+					response.statusCode ?? -1,
+					(response.headers['content-type'] ?? '').split(';')[0]!.trim(),
+					Buffer.concat(chunks).toString('utf8')
+				)
+			);
+		});
+		request.end(body ? Buffer.from(body) : undefined);
+	});
 }
 
+/** The framework's redirects of an odd path (a trailing slash or space is normalised away). */
+const REDIRECTS = [301, 303, 307, 308];
 /** Refusals the API documents (README, Calculation API), besides its successes. */
-const API_STATUSES = new Set([200, 201, 204, 400, 401, 403, 404, 409, 413, 415, 429]);
+const API_STATUSES = new Set([200, 201, 204, ...REDIRECTS, 400, 401, 403, 404, 409, 413, 415, 429]);
 /** What a form action may answer: success, redirect, or a refusal of the request. */
-const FORM_STATUSES = new Set([200, 204, 303, 400, 403, 404, 409, 410, 413, 415, 429]);
+const FORM_STATUSES = new Set([200, 204, ...REDIRECTS, 400, 403, 404, 409, 410, 413, 415, 429]);
 
 function parse(text: string): unknown {
 	try {
