@@ -7,7 +7,7 @@ import { devalueText, Raw } from './fuzz-arbitraries';
 import type { Body } from './fuzz-bodies';
 import type { FuzzRequest } from './fuzz-requests';
 import type { Target } from './fuzz-routes';
-import type { Fixture } from './fuzz-samples';
+import type { Fixture } from './fuzz-fixture';
 
 export type WorstCase = { name: string; target: Target; request: FuzzRequest };
 

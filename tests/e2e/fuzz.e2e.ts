@@ -10,7 +10,8 @@ import { startSeededApp, type RunningApp } from '../../scripts/app-server';
 import { signInAll, type Exchange, type Sessions } from './fuzz-app';
 import { execute, requestFor } from './fuzz-requests';
 import { discoverTargets, targetName } from './fuzz-routes';
-import { findFixture, paramsFor, primaryActor, samples, type Fixture } from './fuzz-samples';
+import { findFixture, type Fixture } from './fuzz-fixture';
+import { paramsFor, primaryActor, samples } from './fuzz-samples';
 import { worstCases } from './fuzz-worst-cases';
 
 const RUNS = Number(process.env.FUZZ_RUNS ?? 20);
