@@ -1,4 +1,10 @@
-import { redirect, type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
+import {
+	redirect,
+	text,
+	type Handle,
+	type HandleServerError,
+	type ServerInit
+} from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { apiError, tooLarge } from '$lib/server/api';
 import { bodyLimitOf } from '$lib/server/body-limits';
@@ -21,6 +27,8 @@ const attachDatabase: Handle = ({ event, resolve }) => {
 	return resolve(event);
 };
 
+const isApi = (url: URL) => url.pathname.startsWith('/api/');
+
 const CODE_OF_STATUS: Record<number, string> = {
 	400: 'invalid',
 	401: 'unauthenticated',
@@ -35,7 +43,7 @@ const CODE_OF_STATUS: Record<number, string> = {
 /** Every API failure, thrown by a guard or answered by the framework, as `{ error: { … } }`. */
 const shapeApiErrors: Handle = async ({ event, resolve }) => {
 	const response = await resolve(event);
-	if (!event.url.pathname.startsWith('/api/') || response.status < 400) return response;
+	if (!isApi(event.url) || response.status < 400) return response;
 	const body = await response
 		.clone()
 		.json()
@@ -57,7 +65,25 @@ const shapeApiErrors: Handle = async ({ event, resolve }) => {
 const rejectOversizedBodies: Handle = ({ event, resolve }) => {
 	const declared = Number(event.request.headers.get('content-length') ?? 0);
 	const limit = bodyLimitOf(event.route.id);
-	return declared > limit ? tooLarge(limit) : resolve(event);
+	if (!(declared > limit)) return resolve(event);
+	// A page answers in words: the API's JSON error is not a form action's result.
+	const refusal = tooLarge(limit);
+	return isApi(event.url) ? refusal : refusal.json().then((b) => text(b.error.message, refusal));
+};
+
+const FORM_MEDIA_TYPES = new Set(['application/x-www-form-urlencoded', 'multipart/form-data']);
+
+/**
+ * Posts to pages must be forms. SvelteKit also lets text/plain through to the actions (an HTML
+ * form may send it), and no action can read it.
+ */
+const refuseNonFormPosts: Handle = ({ event, resolve }) => {
+	if (event.request.method !== 'POST' || isApi(event.url)) return resolve(event);
+	const mediaType = (event.request.headers.get('content-type') ?? '').split(';')[0]!.trim();
+	if (FORM_MEDIA_TYPES.has(mediaType.toLowerCase())) return resolve(event);
+	return text('Send the form as application/x-www-form-urlencoded or multipart/form-data.', {
+		status: 415
+	});
 };
 
 /** Scripts post credentials straight to Auth.js; a throttled account or address gets 429. */
@@ -108,6 +134,7 @@ export const handle = sequence(
 	attachDatabase,
 	shapeApiErrors,
 	rejectOversizedBodies,
+	refuseNonFormPosts,
 	throttleCredentialPosts,
 	authHandle,
 	authenticateBearer,

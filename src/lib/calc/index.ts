@@ -75,7 +75,8 @@ export {
 	matrixSize,
 	validatePlan,
 	MAX_MATRIX_POINTS,
-	MAX_POINTS_PER_PLANE
+	MAX_POINTS_PER_PLANE,
+	MATRIX_LIST_LIMITS
 } from './matrix';
 export type { MatrixPlan, MatrixRow, MeasurementPlane, Configuration } from './matrix';
 export { uniformGrid } from './probe-grid';

@@ -11,6 +11,17 @@ import { speedConditions, type SpeedCondition } from './speed-conditions';
 
 export const MAX_POINTS_PER_PLANE = 10_000;
 export const MAX_MATRIX_POINTS = 250_000;
+/**
+ * The longest list of each kind a matrix may hold. Checked before anything is built from a
+ * request, so a count in the input never decides how much memory or time the server spends.
+ */
+export const MATRIX_LIST_LIMITS = {
+	configurations: 40,
+	speeds: 200,
+	yawAngles: 721,
+	planes: 40,
+	repeats: 20
+} as const;
 
 export type MeasurementPlane = {
 	id: string;

@@ -1,4 +1,5 @@
-import { requireFinite, requirePositive, requireWholeNumber } from './errors';
+import { CalcInputError, requireFinite, requirePositive, requireWholeNumber } from './errors';
+import { MAX_POINTS_PER_PLANE } from './matrix';
 
 /** Probe positions in a traverse plane: rows at heights y, columns at lateral positions z. */
 export type ProbeGrid = { y_m: number[]; z_m: number[] };
@@ -16,6 +17,13 @@ export type UniformGridSpec = {
 export function uniformGrid(spec: UniformGridSpec): ProbeGrid {
 	requireWholeNumber('rows', spec.rows, 1);
 	requireWholeNumber('columns', spec.columns, 1);
+	// Before the arrays exist: a count from a request must not size an allocation unchecked.
+	if (spec.rows * spec.columns > MAX_POINTS_PER_PLANE)
+		throw new CalcInputError(
+			'grid',
+			`${spec.rows} × ${spec.columns} points`,
+			`at most ${MAX_POINTS_PER_PLANE} points in one plane`
+		);
 	requirePositive('rowSpacing_m', spec.rowSpacing_m);
 	requirePositive('columnSpacing_m', spec.columnSpacing_m);
 	const y0 = requireFinite('firstRow_m', spec.firstRow_m ?? 0);

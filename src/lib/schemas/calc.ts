@@ -5,6 +5,8 @@ import {
 	convert,
 	isaAtmosphere,
 	knownUnits,
+	MATRIX_LIST_LIMITS,
+	MAX_POINTS_PER_PLANE,
 	SECTION_KINDS,
 	BLOCKAGE_METHODS,
 	uniformGrid
@@ -171,10 +173,13 @@ export const blockageRequestSchema = z.object({
 
 const gridSchema = z
 	.union([
-		z.object({ y: z.array(length).min(1), z: z.array(length).min(1) }),
 		z.object({
-			rows: z.number().int().min(1),
-			columns: z.number().int().min(1),
+			y: z.array(length).min(1).max(MAX_POINTS_PER_PLANE),
+			z: z.array(length).min(1).max(MAX_POINTS_PER_PLANE)
+		}),
+		z.object({
+			rows: z.number().int().min(1).max(MAX_POINTS_PER_PLANE),
+			columns: z.number().int().min(1).max(MAX_POINTS_PER_PLANE),
 			rowSpacing: length,
 			columnSpacing: length,
 			firstRow: length.optional(),
@@ -201,14 +206,16 @@ export const MATRIX_PAGE_MAX = 5_000;
 export const matrixRequestSchema = z.object({
 	configurations: z
 		.array(z.object({ id: z.string().min(1).max(80), baseline: z.boolean().optional() }))
-		.min(1),
-	speeds: z.array(speed).min(1),
-	yawAngles_deg: z.array(z.number()).min(1),
+		.min(1)
+		.max(MATRIX_LIST_LIMITS.configurations),
+	speeds: z.array(speed).min(1).max(MATRIX_LIST_LIMITS.speeds),
+	yawAngles_deg: z.array(z.number()).min(1).max(MATRIX_LIST_LIMITS.yawAngles),
 	planes: z
 		.array(z.object({ id: z.string().min(1).max(80), downstream: length, grid: gridSchema }))
-		.min(1),
+		.min(1)
+		.max(MATRIX_LIST_LIMITS.planes),
 	dwellPerPoint: duration,
-	repeats: z.number().int().min(1).default(1),
+	repeats: z.number().int().min(1).max(MATRIX_LIST_LIMITS.repeats).default(1),
 	modelReferenceLength: length,
 	tunnelAir: airSchema,
 	blockage: blockageRequestSchema.optional(),

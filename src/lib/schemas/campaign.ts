@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { MAX_MATRIX_POINTS, MAX_POINTS_PER_PLANE } from '../calc/matrix';
+import { MATRIX_LIST_LIMITS, MAX_MATRIX_POINTS, MAX_POINTS_PER_PLANE } from '../calc/matrix';
 import { BLOCKAGE_METHODS } from '../calc/kinds';
 
 export { CAMPAIGN_STATES, type CampaignState } from '../workflow';
@@ -36,8 +36,8 @@ export const airAssumptionSchema = z.discriminatedUnion('model', [
 export const probeGridSchema = z.discriminatedUnion('mode', [
 	z.object({
 		mode: z.literal('uniform'),
-		rows: z.number().int().min(1),
-		columns: z.number().int().min(1),
+		rows: z.number().int().min(1).max(MAX_POINTS_PER_PLANE),
+		columns: z.number().int().min(1).max(MAX_POINTS_PER_PLANE),
 		rowSpacing_m: positive('the row spacing'),
 		columnSpacing_m: positive('the column spacing'),
 		firstRow_m: finite('the first row height'),
@@ -45,10 +45,14 @@ export const probeGridSchema = z.discriminatedUnion('mode', [
 	}),
 	z.object({
 		mode: z.literal('explicit'),
-		y_m: z.array(finite('a row height')).min(1, { error: 'List at least one row height.' }),
+		y_m: z
+			.array(finite('a row height'))
+			.min(1, { error: 'List at least one row height.' })
+			.max(MAX_POINTS_PER_PLANE),
 		z_m: z
 			.array(finite('a column position'))
 			.min(1, { error: 'List at least one column position.' })
+			.max(MAX_POINTS_PER_PLANE)
 	})
 ]);
 export type ProbeGridSpec = z.infer<typeof probeGridSchema>;
@@ -76,9 +80,13 @@ const configurationSchema = z.object({
 	baseline: z.boolean()
 });
 
+/** Index of the first value seen before, in one pass (lists come from requests). */
 function duplicateIndex<T>(values: T[]): number {
-	return values.findIndex((v, i) => values.indexOf(v) !== i);
+	const seen = new Set<T>();
+	return values.findIndex((v) => seen.size === seen.add(v).size);
 }
+
+const most = (what: string, limit: number) => ({ error: `At most ${limit} ${what}.` });
 
 /** What a campaign stores as its JSON definition: everything but its identity and links. */
 const definitionShape = {
@@ -89,14 +97,27 @@ const definitionShape = {
 	/** Chosen by the owner; until then the default for the model's kind applies. */
 	blockageMethod: z.enum(BLOCKAGE_METHODS).optional(),
 	speedUnit: z.enum(SPEED_UNITS),
-	configurations: z.array(configurationSchema).min(1, { error: 'Add at least one configuration.' }),
-	speeds_mps: z.array(positive('a speed')).min(1, { error: 'Add at least one speed.' }),
+	configurations: z
+		.array(configurationSchema)
+		.min(1, { error: 'Add at least one configuration.' })
+		.max(
+			MATRIX_LIST_LIMITS.configurations,
+			most('configurations', MATRIX_LIST_LIMITS.configurations)
+		),
+	speeds_mps: z
+		.array(positive('a speed'))
+		.min(1, { error: 'Add at least one speed.' })
+		.max(MATRIX_LIST_LIMITS.speeds, most('speeds', MATRIX_LIST_LIMITS.speeds)),
 	yawAngles_deg: z
 		.array(z.number().min(-180).max(180))
-		.min(1, { error: 'Add at least one yaw angle.' }),
-	planes: z.array(planeSchema).min(1, { error: 'Add at least one measurement plane.' }),
+		.min(1, { error: 'Add at least one yaw angle.' })
+		.max(MATRIX_LIST_LIMITS.yawAngles, most('yaw angles', MATRIX_LIST_LIMITS.yawAngles)),
+	planes: z
+		.array(planeSchema)
+		.min(1, { error: 'Add at least one measurement plane.' })
+		.max(MATRIX_LIST_LIMITS.planes, most('planes', MATRIX_LIST_LIMITS.planes)),
 	dwellPerPoint_s: z.number().min(0).max(3600),
-	repeats: z.number().int().min(1).max(20)
+	repeats: z.number().int().min(1).max(MATRIX_LIST_LIMITS.repeats)
 };
 
 function checkDefinition(

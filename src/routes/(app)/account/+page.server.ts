@@ -7,6 +7,7 @@ import { createApiToken, listApiTokens, revokeApiToken } from '$lib/server/api-t
 import { requireUser } from '$lib/server/guards';
 import { STATUS_OF_REFUSAL } from '$lib/server/outcome';
 import type { Actions, PageServerLoad } from './$types';
+import { postedForm } from '$lib/server/forms';
 
 export type CreatedTokenMessage = { name: string; token: string };
 
@@ -44,7 +45,8 @@ export const actions: Actions = {
 
 	revoke: async ({ locals, request }) => {
 		const user = requireUser(locals);
-		const parsed = tokenIdSchema.safeParse(Object.fromEntries(await request.formData()));
+		const posted = await postedForm(request);
+		const parsed = tokenIdSchema.safeParse(Object.fromEntries(posted ?? []));
 		if (!parsed.success) return fail(400, { revokeError: 'No token given.' });
 		const revoked = revokeApiToken(locals.db, user, parsed.data.tokenId);
 		if (!revoked.ok) return fail(STATUS_OF_REFUSAL[revoked.code], { revokeError: revoked.message });

@@ -11,6 +11,7 @@ import {
 } from '$lib/server/mail';
 import { STATUS_OF_REFUSAL } from '$lib/server/outcome';
 import type { Actions, PageServerLoad } from './$types';
+import { postedForm } from '$lib/server/forms';
 
 const SHOWN_MESSAGES = 200;
 
@@ -34,7 +35,8 @@ function deliveryNotice({ sent, failed }: { sent: number; failed: number }): str
 export const actions: Actions = {
 	retry: async ({ locals, request }) => {
 		requireRole(locals, 'admin');
-		const parsed = messageIdSchema.safeParse(Object.fromEntries(await request.formData()));
+		const posted = await postedForm(request);
+		const parsed = messageIdSchema.safeParse(Object.fromEntries(posted ?? []));
 		if (!parsed.success) return fail(400, { notice: 'No message given.' });
 		const done = retryMail(locals.db, parsed.data.id);
 		if (!done.ok) return fail(STATUS_OF_REFUSAL[done.code], { notice: done.message });

@@ -4,6 +4,7 @@ import { requireRole } from '$lib/server/guards';
 import { canWriteModel } from '$lib/server/access';
 import { addAttachment, getModelFor, listAttachments, writableModel } from '$lib/server/models';
 import type { Actions, PageServerLoad } from './$types';
+import { postedForm } from '$lib/server/forms';
 
 export const load: PageServerLoad = ({ locals, params }) => {
 	const user = requireRole(locals, 'aerodynamicist', 'admin');
@@ -21,7 +22,7 @@ export const actions: Actions = {
 		const user = requireRole(locals, 'aerodynamicist');
 		const writable = writableModel(locals.db, user, params.id);
 		if (!writable.ok) error(404, { message: writable.message });
-		const file = (await request.formData()).get('file');
+		const file = (await postedForm(request))?.get('file');
 		if (!(file instanceof File) || file.size === 0)
 			return fail(400, { attachError: 'Choose a file to attach.' });
 		const added = await addAttachment(locals.db, attachmentStore(), user, params.id, {

@@ -29,6 +29,7 @@ import { getFacility } from '$lib/server/facilities';
 import { requirePermission, requireUser } from '$lib/server/guards';
 import { refuse, STATUS_OF_REFUSAL, type Outcome } from '$lib/server/outcome';
 import type { Actions, PageServerLoad } from './$types';
+import { postedForm } from '$lib/server/forms';
 
 /** Each campaign's booking form has its own id, so a refusal lands in that campaign's form. */
 const bookFormId = (campaignId: string) => `book-${campaignId}`;
@@ -134,7 +135,8 @@ const changeForm = z.object({ bookingId: z.string().min(1), state: z.enum(BOOKIN
 export const actions: Actions = {
 	book: async ({ locals, params, request, url }) => {
 		const { user, facility } = bookersFacility(locals, params.id);
-		const posted = await request.formData();
+		const posted = await postedForm(request);
+		if (!posted) return fail(400, { stepError: 'The form could not be read.' });
 		const form = await superValidate(posted, zod4(bookingFormSchema), {
 			id: bookFormId(String(posted.get('campaignId') ?? ''))
 		});
@@ -153,7 +155,8 @@ export const actions: Actions = {
 
 	move: async ({ locals, params, request, url }) => {
 		const { user, facility } = bookersFacility(locals, params.id);
-		const posted = await request.formData();
+		const posted = await postedForm(request);
+		if (!posted) return fail(400, { stepError: 'The form could not be read.' });
 		const bookingId = String(posted.get('bookingId') ?? '');
 		const found = findBookingFor(locals.db, user, bookingId, facility.id);
 		if (!found.ok) error(STATUS_OF_REFUSAL[found.code], { message: found.message });
@@ -171,7 +174,7 @@ export const actions: Actions = {
 
 	change: async ({ locals, params, request, url }) => {
 		const { user, facility } = bookersFacility(locals, params.id);
-		const posted = Object.fromEntries(await request.formData());
+		const posted = Object.fromEntries((await postedForm(request)) ?? []);
 		const found = findBookingFor(locals.db, user, String(posted.bookingId ?? ''), facility.id);
 		if (!found.ok) error(STATUS_OF_REFUSAL[found.code], { message: found.message });
 		const parsed = changeForm.safeParse(posted);
