@@ -155,7 +155,8 @@ export const ACCESS_TABLE: readonly AccessLine[] = [
 	{ route: '/(app)/facilities/[id]/edit', call: 'action:default', path: '/facilities/{facility}/edit', allow: FACILITY_STAFF },
 	{ route: '/(app)/facilities/[id]/calendar', call: 'load', path: '/facilities/{facility}/calendar?week={bookingDay}', record: 'booking', allow: SIGNED_IN, conceal: ['otherTeam'] },
 	{ route: '/(app)/facilities/[id]/calendar', call: 'action:book', path: '/facilities/{facility}/calendar', allow: FACILITY_STAFF },
-	{ route: '/(app)/facilities/[id]/calendar', call: 'action:change', path: '/facilities/{facility}/calendar', allow: FACILITY_STAFF, form: { start: 'not-a-time' } },
+	{ route: '/(app)/facilities/[id]/calendar', call: 'action:change', path: '/facilities/{facility}/calendar', allow: FACILITY_STAFF, form: { bookingId: '{booking}', state: 'no-such-state' } },
+	{ route: '/(app)/facilities/[id]/calendar', call: 'action:move', path: '/facilities/{facility}/calendar', allow: FACILITY_STAFF, form: { bookingId: '{booking}', start: 'not-a-time' } },
 	{ route: '/(app)/facilities/[id]/calendar', call: 'action:close', path: '/facilities/{facility}/calendar', allow: FACILITY_STAFF },
 	{ route: '/(app)/operations', call: 'load', path: '/operations', allow: FACILITY_STAFF },
 

@@ -375,9 +375,11 @@ function credentialFor(caller: Caller, team: Team): Credential {
 }
 
 function call(line: AccessLine, credential: Credential): Promise<Answer> {
-	const path = line.path.replace(PLACEHOLDER, (_, name: string) =>
-		encodeURIComponent(found(`value for {${name}}`, values.get(name)))
-	);
+	const fill = (text: string, encode: (v: string) => string) =>
+		text.replace(PLACEHOLDER, (_, name: string) =>
+			encode(found(`value for {${name}}`, values.get(name)))
+		);
+	const path = fill(line.path, encodeURIComponent);
 	const base = app.baseUrl;
 	if (line.call === 'load')
 		return send(base, credential, 'GET', path, { headers: { accept: 'text/html' } });
@@ -388,7 +390,7 @@ function call(line: AccessLine, credential: Credential): Promise<Answer> {
 			credential,
 			path,
 			name === 'default' ? null : name,
-			new URLSearchParams(line.form ?? {})
+			new URLSearchParams(Object.entries(line.form ?? {}).map(([k, v]) => [k, fill(v, (x) => x)]))
 		);
 	}
 	if (line.call === 'GET' || line.call === 'DELETE')

@@ -94,12 +94,10 @@ describe('expandMatrix', () => {
 					{
 						id: 'big',
 						downstream_m: 1,
-						grid: uniformGrid({
-							rows: 101,
-							columns: 100,
-							rowSpacing_m: 0.01,
-							columnSpacing_m: 0.01
-						})
+						grid: {
+							y_m: Array.from({ length: 101 }, (_, i) => i * 0.01),
+							z_m: Array.from({ length: 100 }, (_, j) => j * 0.01)
+						}
 					}
 				]
 			},
@@ -109,6 +107,21 @@ describe('expandMatrix', () => {
 	])('refuses %s', (_, overrides, message) => {
 		expect(() => expandMatrix(plan(overrides))).toThrow(CalcInputError);
 		expect(() => expandMatrix(plan(overrides))).toThrow(message);
+	});
+});
+
+describe('uniformGrid', () => {
+	it.each([
+		[101, 100],
+		[3e7, 1],
+		[2 ** 32, 1]
+	])('refuses %d × %d points before building the grid', (rows, columns) => {
+		const started = performance.now();
+		expect(() => uniformGrid({ rows, columns, rowSpacing_m: 0.01, columnSpacing_m: 0.01 })).toThrow(
+			/at most 10000 points in one plane/
+		);
+		// Building 3e7 positions takes seconds; refusing takes no time (common practice, no source).
+		expect(performance.now() - started).toBeLessThan(50);
 	});
 });
 
