@@ -62,10 +62,13 @@ const shapeApiErrors: Handle = async ({ event, resolve }) => {
  * Refuses a declared body over the limit before anything reads it. adapter-node's own
  * BODY_SIZE_LIMIT also stops bodies sent without a length, mid-stream.
  */
-const rejectOversizedBodies: Handle = ({ event, resolve }) => {
+const rejectOversizedBodies: Handle = async ({ event, resolve }) => {
 	const declared = Number(event.request.headers.get('content-length') ?? 0);
 	const limit = bodyLimitOf(event.route.id);
 	if (!(declared > limit)) return resolve(event);
+	// Read and drop what was sent (adapter-node stops at BODY_SIZE_LIMIT), so the client hears
+	// the refusal instead of a connection reset while it is still sending.
+	await event.request.body?.pipeTo(new WritableStream()).catch(() => undefined);
 	// A page answers in words: the API's JSON error is not a form action's result.
 	const refusal = tooLarge(limit);
 	return isApi(event.url) ? refusal : refusal.json().then((b) => text(b.error.message, refusal));

@@ -1,4 +1,4 @@
-import type { Browser, Page } from 'playwright-core';
+import type { Browser, BrowserContextOptions, Page } from 'playwright-core';
 import { inject } from 'vitest';
 import { launchChromium } from '../../scripts/chromium';
 import { DEMO_PASSWORD } from '../../scripts/demo-scenario';
@@ -20,8 +20,12 @@ export async function signIn(page: Page, email: string, password = DEMO_PASSWORD
 }
 
 /** A fresh browser context signed in as `email`, on the page sign-in lands on. */
-export async function signedInPage(browser: Browser, email: string): Promise<Page> {
-	const page = await (await browser.newContext({ acceptDownloads: true })).newPage();
+export async function signedInPage(
+	browser: Browser,
+	email: string,
+	options: BrowserContextOptions = {}
+): Promise<Page> {
+	const page = await (await browser.newContext({ acceptDownloads: true, ...options })).newPage();
 	await signIn(page, email);
 	await page.waitForURL((u) => !u.pathname.startsWith('/signin'));
 	return page;

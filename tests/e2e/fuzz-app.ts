@@ -112,8 +112,24 @@ export function send(
 const REDIRECTS = [301, 303, 307, 308];
 /** Refusals the API documents (README, Calculation API), besides its successes. */
 const API_STATUSES = new Set([200, 201, 204, ...REDIRECTS, 400, 401, 403, 404, 409, 413, 415, 429]);
-/** What a form action may answer: success, redirect, or a refusal of the request. */
-const FORM_STATUSES = new Set([200, 204, ...REDIRECTS, 400, 403, 404, 409, 410, 413, 415, 429]);
+/**
+ * What a form action may answer: success, redirect, or a refusal of the request. Sign-out is
+ * Auth.js's own action, which redirects with 302.
+ */
+const FORM_STATUSES = new Set([
+	200,
+	204,
+	302,
+	...REDIRECTS,
+	400,
+	403,
+	404,
+	409,
+	410,
+	413,
+	415,
+	429
+]);
 
 function parse(text: string): unknown {
 	try {

@@ -143,7 +143,13 @@ export const nastyScalar: fc.Arbitrary<unknown> = fc.oneof(
 export const nastyValue: fc.Arbitrary<unknown> = fc.oneof(
 	{ weight: 8, arbitrary: nastyScalar },
 	{ weight: 2, arbitrary: fc.jsonValue({ maxDepth: 2 }) },
-	{ weight: 1, arbitrary: fc.constantFrom([], {}, [null], { value: 'NaN', unit: 'm' }) },
+	// Fresh copies: the bodies are spoiled in place, and one shared {} could end up inside itself.
+	{
+		weight: 1,
+		arbitrary: fc
+			.constantFrom([], {}, [null], { value: 'NaN', unit: 'm' })
+			.map((v) => structuredClone(v))
+	},
 	{ weight: 1, arbitrary: fc.constantFrom(...BULK) }
 );
 

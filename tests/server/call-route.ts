@@ -30,7 +30,8 @@ export async function callRoute(
 			requestEvent({ ...init, db, user, json: body, path: `/api${search ?? ''}` }) as never
 		)) as Response;
 		const text = await response.text();
-		const lines = response.headers.get('content-type') === 'application/x-ndjson';
+		const type = response.headers.get('content-type') ?? '';
+		const lines = type === 'application/x-ndjson';
 		return {
 			status: response.status,
 			headers: response.headers,
@@ -39,9 +40,11 @@ export async function callRoute(
 						.trim()
 						.split('\n')
 						.map((l) => JSON.parse(l))
-				: text
-					? JSON.parse(text)
-					: null
+				: !text
+					? null
+					: type.startsWith('application/json')
+						? JSON.parse(text)
+						: text
 		};
 	} catch (thrown) {
 		if (isHttpError(thrown))

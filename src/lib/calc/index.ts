@@ -68,7 +68,7 @@ export {
 	CONVENTIONAL_WATER_DENSITY_KGM3
 } from './manometer';
 export type { ManometerReading } from './manometer';
-export { runLayout, locatePoint, pointAt } from './runs';
+export { runLayout, locatePoint, pointAt, matrixRows } from './runs';
 export type { PlannedRun, RunIdentity, RunLayout, PointPosition } from './runs';
 export {
 	expandMatrix,

@@ -148,6 +148,31 @@ export function validatePlan(plan: MatrixPlan): void {
  * then speed, then plane, then repeat, then the plane's points row by row. Flow quantities
  * depend only on the speed, so each is computed once per speed and shared.
  */
+/** One measured point's row: where it is, under which run, and its speed's conditions. */
+export function matrixRow(
+	condition: SpeedCondition,
+	plane: MeasurementPlane,
+	at: Pick<MatrixRow, 'point' | 'run' | 'configurationId' | 'yaw_deg' | 'repeat'>,
+	rowIndex: number,
+	columnIndex: number
+): MatrixRow {
+	return {
+		speed_mps: condition.speed_mps,
+		modelRe: condition.modelRe,
+		dynamicPressure_Pa: condition.dynamicPressure_Pa,
+		dynamicPressure_mmH2O: condition.dynamicPressure_mmH2O,
+		mach: condition.mach,
+		correctedDynamicPressure_Pa: condition.correctedDynamicPressure_Pa,
+		...at,
+		planeId: plane.id,
+		downstream_m: plane.downstream_m,
+		row: rowIndex + 1,
+		column: columnIndex + 1,
+		y_m: plane.grid.y_m[rowIndex]!,
+		z_m: plane.grid.z_m[columnIndex]!
+	};
+}
+
 export function expandMatrix(plan: MatrixPlan): MatrixRow[] {
 	validatePlan(plan);
 	const conditions = speedConditions(plan);
@@ -163,25 +188,15 @@ export function expandMatrix(plan: MatrixPlan): MatrixRow[] {
 						const { y_m: ys, z_m: zs } = plane.grid;
 						for (let i = 0; i < ys.length; i++) {
 							for (let j = 0; j < zs.length; j++) {
-								rows.push({
-									speed_mps: condition.speed_mps,
-									modelRe: condition.modelRe,
-									dynamicPressure_Pa: condition.dynamicPressure_Pa,
-									dynamicPressure_mmH2O: condition.dynamicPressure_mmH2O,
-									mach: condition.mach,
-									correctedDynamicPressure_Pa: condition.correctedDynamicPressure_Pa,
-									point: point + 1,
-									run,
-									configurationId: configuration.id,
-									yaw_deg,
-									planeId: plane.id,
-									downstream_m: plane.downstream_m,
-									repeat,
-									row: i + 1,
-									column: j + 1,
-									y_m: ys[i]!,
-									z_m: zs[j]!
-								});
+								rows.push(
+									matrixRow(
+										condition,
+										plane,
+										{ point: point + 1, run, configurationId: configuration.id, yaw_deg, repeat },
+										i,
+										j
+									)
+								);
 								point++;
 							}
 						}

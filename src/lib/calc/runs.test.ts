@@ -4,6 +4,7 @@ import {
 	dryAirState,
 	expandMatrix,
 	locatePoint,
+	matrixRows,
 	pointAt,
 	runLayout,
 	type MatrixPlan
@@ -82,5 +83,25 @@ describe('runLayout', () => {
 		expect(pointAt(layout, 1, 3, 1)).toBeUndefined();
 		expect(pointAt(layout, 1, 1, 0)).toBeUndefined();
 		expect(pointAt(layout, layout.runs.length + 1, 1, 1)).toBeUndefined();
+	});
+});
+
+describe('matrixRows', () => {
+	it('gives the same rows as the full expansion for any page', () => {
+		fc.assert(
+			fc.property(
+				fc.integer({ min: 1, max: 4 }),
+				fc.integer({ min: 1, max: 4 }),
+				fc.integer({ min: 0, max: 300 }),
+				fc.integer({ min: 1, max: 80 }),
+				(rows, columns, offset, limit) => {
+					const p = plan(rows, columns, 2);
+					expect(matrixRows(p, offset, limit)).toEqual(
+						expandMatrix(p).slice(offset, offset + limit)
+					);
+				}
+			),
+			{ numRuns: 30 }
+		);
 	});
 });

@@ -1,4 +1,5 @@
-import { validatePlan, type MatrixPlan } from './matrix';
+import { matrixRow, validatePlan, type MatrixPlan, type MatrixRow } from './matrix';
+import { speedConditions } from './speed-conditions';
 
 /** What names a traverse of the matrix: one plane at one configuration, yaw, speed and repeat. */
 export type RunIdentity = {
@@ -86,4 +87,30 @@ export function pointAt(
 	if (!r || !Number.isInteger(row) || !Number.isInteger(column)) return undefined;
 	if (row < 1 || row > r.rows || column < 1 || column > r.columns) return undefined;
 	return r.firstPoint + (row - 1) * r.columns + (column - 1);
+}
+
+/**
+ * The rows of points offset + 1 … offset + limit, built by arithmetic on the run layout: a page
+ * of a large matrix costs the page, not the matrix.
+ */
+export function matrixRows(plan: MatrixPlan, offset: number, limit: number): MatrixRow[] {
+	const layout = runLayout(plan);
+	const conditions = new Map(speedConditions(plan).map((c) => [c.speed_mps, c]));
+	const planes = new Map(plan.planes.map((p) => [p.id, p]));
+	const rows: MatrixRow[] = [];
+	const last = Math.min(layout.pointCount, offset + limit);
+	for (let point = offset + 1; point <= last; point++) {
+		const { run, row, column } = locatePoint(layout, point)!;
+		const { configurationId, yaw_deg, repeat } = run;
+		rows.push(
+			matrixRow(
+				conditions.get(run.speed_mps)!,
+				planes.get(run.planeId)!,
+				{ point, run: run.run, configurationId, yaw_deg, repeat },
+				row - 1,
+				column - 1
+			)
+		);
+	}
+	return rows;
 }

@@ -2,7 +2,8 @@ import {
 	blockage,
 	envelopeFindings,
 	estimateOccupancy,
-	expandMatrix,
+	matrixRows,
+	matrixSize,
 	speedConditions,
 	type Blockage,
 	type MatrixPlan
@@ -46,7 +47,7 @@ export function evaluateMatrixRequest(req: MatrixRequest) {
 		tunnelAir: req.tunnelAir,
 		dynamicPressureFactor: correction?.dynamicPressureFactor ?? 1
 	};
-	const rows = expandMatrix(plan);
+	const rows = matrixRows(plan, req.offset, req.limit);
 	const speeds = speedConditions(plan);
 	const findings = [
 		...(correction?.notes ?? []),
@@ -71,10 +72,10 @@ export function evaluateMatrixRequest(req: MatrixRequest) {
 			})
 		: null;
 	return {
-		rowCount: rows.length,
+		rowCount: matrixSize(plan),
 		offset: req.offset,
 		limit: req.limit,
-		rows: rows.slice(req.offset, req.offset + req.limit),
+		rows,
 		speeds,
 		blockage: correction ?? null,
 		findings,

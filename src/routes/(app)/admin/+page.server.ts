@@ -1,10 +1,10 @@
-import { fail } from '@sveltejs/kit';
 import {
 	message,
 	setError,
 	superValidate,
 	type FormPathLeavesWithErrors,
-	type SuperValidated
+	type SuperValidated,
+	fail
 } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import {

@@ -1,5 +1,5 @@
-import { fail, redirect } from '@sveltejs/kit';
-import { message, superValidate } from 'sveltekit-superforms';
+import { redirect } from '@sveltejs/kit';
+import { message, superValidate, fail } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { homePath } from '$lib/roles';
 import { signInSchema } from '$lib/schemas/user';

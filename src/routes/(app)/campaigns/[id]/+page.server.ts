@@ -1,8 +1,7 @@
 import { error, fail, redirect } from '@sveltejs/kit';
-import { CalcInputError } from '$lib/calc';
 import { campaignActor, canEditCampaign, canUploadReadings } from '$lib/server/access';
 import { campaignSlots } from '$lib/server/bookings';
-import { figuresOf } from '$lib/server/campaign-export';
+import { figuresOrProblem } from '$lib/server/campaign-export';
 import { deleteCampaign, getCampaignFor } from '$lib/server/campaigns';
 import { requireRole, requireUser } from '$lib/server/guards';
 import { STATUS_OF_REFUSAL, type Refusal } from '$lib/server/outcome';
@@ -23,15 +22,7 @@ export const load: PageServerLoad = ({ locals, params }) => {
 	const user = requireUser(locals);
 	const found = getCampaignFor(locals.db, user, params.id);
 	if (!found) error(404, { message: 'No such campaign.' });
-	let figures: ReturnType<typeof figuresOf> | null = null;
-	let problem: string | null = null;
-	try {
-		figures = figuresOf(found);
-	} catch (thrown) {
-		// A facility or model changed since the draft was saved can make it uncomputable.
-		if (!(thrown instanceof CalcInputError)) throw thrown;
-		problem = thrown.message;
-	}
+	const { figures, problem } = figuresOrProblem(found);
 	return {
 		campaign: found,
 		figures,

@@ -1,5 +1,5 @@
-import { error, fail } from '@sveltejs/kit';
-import { message, setError, superValidate, type SuperValidated } from 'sveltekit-superforms';
+import { error } from '@sveltejs/kit';
+import { message, setError, superValidate, type SuperValidated, fail } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { z } from 'zod';
 import { openingWindows } from '$lib/booking/calendar';

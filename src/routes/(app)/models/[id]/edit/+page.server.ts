@@ -1,5 +1,5 @@
-import { error, fail, redirect } from '@sveltejs/kit';
-import { setError, superValidate } from 'sveltekit-superforms';
+import { error, redirect } from '@sveltejs/kit';
+import { setError, superValidate, fail } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { scaleModelSchema } from '$lib/schemas/model';
 import { requireRole } from '$lib/server/guards';

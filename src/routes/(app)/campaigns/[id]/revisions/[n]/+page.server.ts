@@ -1,5 +1,5 @@
-import { error, fail } from '@sveltejs/kit';
-import { message, superValidate } from 'sveltekit-superforms';
+import { error } from '@sveltejs/kit';
+import { message, superValidate, fail } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { diffRevisions } from '$lib/review/diff';
 import { decisionSchema } from '$lib/schemas/review';
