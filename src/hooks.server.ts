@@ -6,9 +6,10 @@ import {
 	type ServerInit
 } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
-import { apiError, tooLarge } from '$lib/server/api';
+import { apiError, tooLarge, type ApiErrorBody } from '$lib/server/api';
 import { bodyLimitOf } from '$lib/server/body-limits';
 import { authHandle } from '$lib/server/auth';
+import { withinAbsoluteLifetime } from '$lib/server/auth/session-lifetime';
 import { authenticateBearer } from '$lib/server/auth/bearer';
 import { retryAfterSeconds, throttleKeys } from '$lib/server/auth/throttle';
 import { getDb } from '$lib/server/db';
@@ -71,7 +72,9 @@ const rejectOversizedBodies: Handle = async ({ event, resolve }) => {
 	await event.request.body?.pipeTo(new WritableStream()).catch(() => undefined);
 	// A page answers in words: the API's JSON error is not a form action's result.
 	const refusal = tooLarge(limit);
-	return isApi(event.url) ? refusal : refusal.json().then((b) => text(b.error.message, refusal));
+	if (isApi(event.url)) return refusal;
+	const { error } = (await refusal.json()) as ApiErrorBody;
+	return text(error.message, { status: refusal.status });
 };
 
 const FORM_MEDIA_TYPES = new Set(['application/x-www-form-urlencoded', 'multipart/form-data']);
@@ -118,8 +121,12 @@ const resolveUser: Handle = async ({ event, resolve }) => {
 	const session = await event.locals.auth();
 	if (session?.user?.id) {
 		// The session callback in $lib/server/auth copies the token's session version here.
-		const { sessionVersion } = session as typeof session & { sessionVersion?: number };
-		event.locals.user = sessionUser(event.locals.db, session.user.id, sessionVersion ?? 0);
+		const { sessionVersion, signedInAt } = session as typeof session & {
+			sessionVersion?: number;
+			signedInAt?: number;
+		};
+		if (withinAbsoluteLifetime(signedInAt))
+			event.locals.user = sessionUser(event.locals.db, session.user.id, sessionVersion ?? 0);
 	}
 	return resolve(event);
 };

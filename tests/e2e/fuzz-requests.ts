@@ -47,6 +47,8 @@ const queryPair = fc.tuple(
 	nastyScalar.map(formText)
 );
 
+const ENDS_SESSIONS = /signout/;
+
 export function requestFor(
 	target: Target,
 	primary: Actor,
@@ -60,7 +62,10 @@ export function requestFor(
 		.tuple(...names.map(() => pathSegment))
 		.map((values) => Object.fromEntries(names.map((n, i) => [n, values[i]!])));
 	return fc.record({
-		actor: fc.oneof({ weight: 5, arbitrary: fc.constant(primary) }, fc.constantFrom(...ACTORS)),
+		// Signing out ends every session of the user, the fuzz's own included: only as its actor.
+		actor: ENDS_SESSIONS.test(targetName(target))
+			? fc.constant(primary)
+			: fc.oneof({ weight: 5, arbitrary: fc.constant(primary) }, fc.constantFrom(...ACTORS)),
 		params: names.length
 			? fc.oneof({ weight: 5, arbitrary: fc.constant(ownParams) }, oddParams)
 			: fc.constant({}),

@@ -143,6 +143,7 @@ export function samples(fx: Fixture): Record<string, Sample> {
 		'POST /(app)/admin?/deactivate': form({ userId: fx.otherUser }),
 		'POST /(app)/admin?/reactivate': form({ userId: fx.otherUser }),
 		'POST /(app)/admin?/reissue': form({ userId: fx.otherUser }),
+		'POST /(app)/admin?/endSessions': form({ userId: fx.otherUser }),
 		'POST /(app)/admin/outbox?/retry': form({ id: fx.mail }),
 		'POST /(app)/campaigns/[id]?/readings': form({ file: csv, replace: 'on' }),
 		'POST /(app)/campaigns/[id]/edit': { kind: 'superform', value: fx.campaignBody },

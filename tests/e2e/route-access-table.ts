@@ -108,6 +108,7 @@ export const ACCESS_TABLE: readonly AccessLine[] = [
 	{ route: '/(app)/admin', call: 'action:deactivate', path: '/admin', allow: ['admin'] },
 	{ route: '/(app)/admin', call: 'action:reactivate', path: '/admin', allow: ['admin'] },
 	{ route: '/(app)/admin', call: 'action:reissue', path: '/admin', allow: ['admin'] },
+	{ route: '/(app)/admin', call: 'action:endSessions', path: '/admin', allow: ['admin'] },
 	{ route: '/(app)/admin/outbox', call: 'load', path: '/admin/outbox', allow: ['admin'] },
 	{ route: '/(app)/admin/outbox', call: 'action:retry', path: '/admin/outbox', allow: ['admin'] },
 	{ route: '/(app)/admin/outbox', call: 'action:send', path: '/admin/outbox', allow: ['admin'] },

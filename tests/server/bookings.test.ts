@@ -11,7 +11,7 @@ import {
 	proposeFor
 } from '../../src/lib/server/bookings';
 import { createCampaign } from '../../src/lib/server/campaigns';
-import { moveCampaign } from '../../src/lib/server/review';
+import { moveCampaign, submitCampaign } from '../../src/lib/server/review';
 import { approvedCampaignWorld } from './campaign-fixtures';
 import { tempDb } from './temp-db';
 
@@ -38,6 +38,24 @@ function approvedWorld() {
 }
 
 describe('booking rules', () => {
+	it('answers a draft the booker may not see as it answers an id that does not exist', () => {
+		const { db, w, operator } = approvedWorld();
+		const draft = createCampaign(db, w.aeroA, w.input());
+		if (!draft.ok) throw new Error(draft.message);
+		const bookCampaign = (campaignId: string) =>
+			createBooking(
+				db,
+				operator,
+				w.tunnel,
+				{ campaignId, start: at('2027-01-04T08:00'), end: at('2027-01-04T12:00'), note: '' },
+				ORIGIN,
+				NOW
+			);
+		const unseen = bookCampaign(draft.id);
+		expect(unseen).toEqual(bookCampaign('00000000-0000-4000-8000-000000000000'));
+		expect(unseen).toMatchObject({ ok: false, code: 'invalid', field: 'campaignId' });
+	});
+
 	it('allows touching slots and refuses a one-second overlap, naming the slot it collides with', () => {
 		const { book } = approvedWorld();
 		const first = book('2027-01-04T08:00', '2027-01-04T12:00');
@@ -85,6 +103,8 @@ describe('booking rules', () => {
 		const { db, w, operator, campaignId, book } = approvedWorld();
 		const draft = createCampaign(db, w.aeroA, { ...w.input(), name: 'Not yet approved' });
 		if (!draft.ok) throw new Error(draft.message);
+		// Submitted, so staff see it; not approved, so it cannot be booked.
+		submitCampaign(db, w.aeroA, draft.id, ORIGIN);
 		expect(
 			createBooking(
 				db,

@@ -218,6 +218,19 @@ export function assignRoles(db: Db, userId: string, roles: Role[], actorId: stri
 	return { ok: true };
 }
 
+/**
+ * Ends every session of the user: the tokens carry the session version they were issued
+ * under, and a token of an older version no longer resolves to a user.
+ */
+export function endSessions(db: Db, userId: string): Outcome {
+	const changed = db
+		.update(user)
+		.set({ sessionVersion: sql`${user.sessionVersion} + 1` })
+		.where(eq(user.id, userId))
+		.run();
+	return changed.changes === 1 ? { ok: true } : refuse('not-found', 'No such account.');
+}
+
 /** Deactivating ends the user's sessions at once; reactivating lets them sign in again. */
 export function setActive(db: Db, userId: string, active: boolean, actorId: string): Outcome {
 	if (userId === actorId && !active) {

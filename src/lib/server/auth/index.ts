@@ -5,6 +5,7 @@ import { signInSchema } from '../../schemas/user';
 import { getDb } from '../db';
 import { storedSecret } from '../settings';
 import { checkCredentials, type SignInRefusal } from './credentials';
+import { SESSION_MAX_AGE_S } from './session-lifetime';
 
 class SignInRefused extends CredentialsSignin {
 	constructor(reason: SignInRefusal) {
@@ -12,8 +13,6 @@ class SignInRefused extends CredentialsSignin {
 		this.code = reason;
 	}
 }
-
-export const SESSION_MAX_AGE_S = 7 * 24 * 3600;
 
 export const {
 	handle: authHandle,
@@ -46,14 +45,18 @@ export const {
 		],
 		callbacks: {
 			jwt({ token, user }) {
-				if (user) token.sessionVersion = (user as { sessionVersion: number }).sessionVersion;
+				if (user) {
+					token.sessionVersion = (user as { sessionVersion: number }).sessionVersion;
+					token.signedInAt = Date.now();
+				}
 				return token;
 			},
 			session({ session, token }) {
 				return {
 					...session,
 					user: { ...session.user, id: token.sub ?? '' },
-					sessionVersion: Number(token.sessionVersion ?? 0)
+					sessionVersion: Number(token.sessionVersion ?? 0),
+					signedInAt: Number(token.signedInAt ?? 0)
 				};
 			}
 		}

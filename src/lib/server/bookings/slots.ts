@@ -7,7 +7,7 @@ import {
 } from '../../booking/workflow';
 import type { SessionUser } from '../../roles';
 import type { BookingChange, BookingInput } from '../../schemas/booking';
-import { canBook } from '../access';
+import { canBook, canReadCampaign } from '../access';
 import type { Db } from '../db/open';
 import { booking, campaign } from '../db/schema';
 import { getFacility } from '../facilities';
@@ -48,7 +48,9 @@ export function createBooking(
 			const f = getFacility(tx, facilityId);
 			if (!f) return refuse('not-found', 'No such facility.');
 			const c = tx.select().from(campaign).where(eq(campaign.id, input.campaignId)).get();
-			if (!c) return refuse('invalid', 'No such campaign.', 'campaignId');
+			// A campaign the booker may not see answers as one that does not exist.
+			if (!c || !canReadCampaign(viewer, c))
+				return refuse('invalid', 'No such campaign.', 'campaignId');
 			if (!c.approvedRevisionId)
 				return refuse(
 					'conflict',

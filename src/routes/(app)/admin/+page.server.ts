@@ -22,6 +22,7 @@ import {
 	inviteUser,
 	listTeams,
 	listUsers,
+	endSessions,
 	reissueInvitation,
 	setActive
 } from '$lib/server/users';
@@ -102,6 +103,15 @@ export const actions: Actions = {
 
 	deactivate: ({ locals, request }) => changeActive(locals, request, false),
 	reactivate: ({ locals, request }) => changeActive(locals, request, true),
+
+	endSessions: async ({ locals, request }) => {
+		requireRole(locals, 'admin');
+		const form = await accountForm(request);
+		if (!form.valid) return fail(400, { form });
+		const done = endSessions(locals.db, form.data.userId);
+		if (!done.ok) return refused(form, done);
+		return message(form, { text: 'Signed out everywhere; the next request asks for sign-in.' });
+	},
 
 	reissue: async ({ locals, request, url }) => {
 		const admin = requireRole(locals, 'admin');
