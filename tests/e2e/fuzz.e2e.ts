@@ -85,15 +85,15 @@ describe('every route takes bad input without a server error', () => {
 describe('the known worst requests are refused or answered in time', () => {
 	it('answers each within the budget without a server error', async () => {
 		const report: string[] = [];
-		for (const { name, target, request } of worstCases(fx)) {
+		for (const { name, target, request, budget_ms = BUDGET_MS } of worstCases(fx)) {
 			const tries: Exchange[] = [];
 			// Up to three tries, the best one counting: a busy machine can slow any single one.
-			while (tries.length < 3 && !tries.some((t) => t.problem || t.ms <= BUDGET_MS))
+			while (tries.length < 3 && !tries.some((t) => t.problem || t.ms <= budget_ms))
 				tries.push(await execute(target, request, app.baseUrl, sessions));
 			exchanges.push(...tries);
 			const best = Math.min(...tries.map((t) => t.ms));
 			const problem = tries.find((t) => t.problem)?.problem;
-			if (problem || best > BUDGET_MS)
+			if (problem || best > budget_ms)
 				report.push(
 					`${name}: ${tries.at(-1)!.status}, best ${best.toFixed(0)} ms of ${tries.length}${problem ? `, ${problem}` : ''}`
 				);

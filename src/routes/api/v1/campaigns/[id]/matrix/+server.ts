@@ -1,6 +1,6 @@
 import { error } from '@sveltejs/kit';
 import { z } from 'zod';
-import { expandMatrix } from '$lib/calc';
+import { MAX_MATRIX_POINTS, matrixRows, matrixSize } from '$lib/calc';
 import { apiError, calculationResponse, fieldMessages } from '$lib/server/api';
 import { figuresOf } from '$lib/server/campaign-export';
 import { getCampaignFor } from '$lib/server/campaigns';
@@ -8,7 +8,7 @@ import { requireUser } from '$lib/server/guards';
 import type { RequestHandler } from './$types';
 
 const pageQuery = z.object({
-	offset: z.coerce.number().int().min(0).default(0),
+	offset: z.coerce.number().int().min(0).max(MAX_MATRIX_POINTS).default(0),
 	limit: z.coerce.number().int().min(1).max(5000).default(500)
 });
 
@@ -22,7 +22,7 @@ export const GET: RequestHandler = ({ locals, params, url }) => {
 		return apiError(400, 'invalid', 'Bad paging parameters.', fieldMessages(page.error));
 	const { offset, limit } = page.data;
 	return calculationResponse(() => {
-		const rows = expandMatrix(figuresOf(found).plan);
-		return { rowCount: rows.length, offset, limit, rows: rows.slice(offset, offset + limit) };
+		const { plan } = figuresOf(found);
+		return { rowCount: matrixSize(plan), offset, limit, rows: matrixRows(plan, offset, limit) };
 	});
 };
