@@ -31,9 +31,9 @@ export async function signedInPage(
 	return page;
 }
 
-/** A session cookie for `email`, signed in the way a script without a browser does. */
-export async function sessionCookie(email: string, password = DEMO_PASSWORD): Promise<string> {
-	const signIn = await fetch(url('/auth/callback/credentials'), {
+/** Posts credentials straight to Auth.js, as a script without a browser does. */
+export function postCredentials(email: string, password = DEMO_PASSWORD): Promise<Response> {
+	return fetch(url('/auth/callback/credentials'), {
 		method: 'POST',
 		redirect: 'manual',
 		headers: {
@@ -42,7 +42,11 @@ export async function sessionCookie(email: string, password = DEMO_PASSWORD): Pr
 		},
 		body: new URLSearchParams({ email, password })
 	});
-	return signIn.headers
+}
+
+/** A session cookie for `email`. */
+export async function sessionCookie(email: string, password = DEMO_PASSWORD): Promise<string> {
+	return (await postCredentials(email, password)).headers
 		.getSetCookie()
 		.map((c) => c.split(';')[0])
 		.join('; ');

@@ -1,20 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { DEMO_READINGS } from '../../scripts/demo-scenario';
 import { READINGS_MAX_BYTES } from '../../src/lib/schemas/readings';
-import { sessionCookie, url } from './browser';
+import { postCredentials, sessionCookie, url } from './browser';
 
 describe('sign-in cannot be turned against the user', () => {
 	it('answers a wrong password posted straight to the credentials endpoint with the refusal, not 500', async () => {
 		for (const email of ['aero@demo.test', 'nobody@demo.test']) {
-			const answer = await fetch(url('/auth/callback/credentials'), {
-				method: 'POST',
-				redirect: 'manual',
-				headers: {
-					'content-type': 'application/x-www-form-urlencoded',
-					origin: new URL(url('/')).origin
-				},
-				body: new URLSearchParams({ email, password: 'not-the-password' })
-			});
+			const answer = await postCredentials(email, 'not-the-password');
 			expect(answer.status).toBeLessThan(500);
 			expect(answer.headers.get('location') ?? '').toMatch(/code=credentials/);
 		}
@@ -90,5 +82,26 @@ describe('the production start', () => {
 		const over = await send('x'.repeat(READINGS_MAX_BYTES + 1));
 		expect(over.status).toBe(413);
 		expect((await over.json()).error).toMatchObject({ code: 'too-large' });
+	});
+});
+
+describe('sessions', () => {
+	it('ends the session on the server at sign-out, so a copied cookie stops working', async () => {
+		const cookie = await sessionCookie('reviewer@demo.test');
+		const me = () => fetch(url('/api/v1/me'), { headers: { cookie } });
+		expect((await me()).status).toBe(200);
+		const signedOut = await fetch(url('/signout'), {
+			method: 'POST',
+			redirect: 'manual',
+			headers: {
+				cookie,
+				'content-type': 'application/x-www-form-urlencoded',
+				origin: new URL(url('/')).origin
+			},
+			body: ''
+		});
+		expect(signedOut.status).toBeLessThan(400);
+		// The same cookie, replayed as a thief would after the owner signed out.
+		expect((await me()).status).toBe(401);
 	});
 });
