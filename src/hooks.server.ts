@@ -115,6 +115,24 @@ const throttleCredentialPosts: Handle = async ({ event, resolve }) => {
 	return resolve(event);
 };
 
+const READS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+/**
+ * A write to the API carrying the session cookie must come from the app's own pages: browsers
+ * send Origin on every cross-site and every non-GET request, and SvelteKit's own check covers
+ * form content types only. Calls with an API token carry no ambient credential and are exempt.
+ */
+const requireOwnOriginForCookieWrites: Handle = ({ event, resolve }) => {
+	const cookieSigned = event.locals.user && !event.locals.apiToken;
+	if (READS.has(event.request.method) || !isApi(event.url) || !cookieSigned) return resolve(event);
+	if (event.request.headers.get('origin') === event.url.origin) return resolve(event);
+	return apiError(
+		403,
+		'cross-origin',
+		'A write signed in by cookie must come from this site (send its Origin header), or use an API token.'
+	);
+};
+
 const resolveUser: Handle = async ({ event, resolve }) => {
 	// A request signed with a token acts as its owner only, whatever cookie comes along.
 	if (event.locals.apiToken) return resolve(event);
@@ -149,6 +167,7 @@ export const handle = sequence(
 	authHandle,
 	authenticateBearer,
 	resolveUser,
+	requireOwnOriginForCookieWrites,
 	sendSignedOutToSignIn
 );
 

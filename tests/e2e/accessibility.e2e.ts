@@ -3,7 +3,7 @@ import { createRequire } from 'node:module';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_CAMPAIGNS } from '../../scripts/demo-scenario';
-import { launchBrowser, signedInPage, url } from './browser';
+import { launchBrowser, ownOrigin, signedInPage, url } from './browser';
 
 // axe-core is put into the page as an inline script, which the app's CSP rightly refuses.
 const AUDIT = { bypassCSP: true };
@@ -104,6 +104,7 @@ async function draftId(page: Page): Promise<string> {
 	const byName = async (path: string, key: string, name: string) =>
 		(await listed(page, path, key)).find((x) => x.name === name)!.id;
 	const created = await page.context().request.post(url('/api/v1/campaigns'), {
+		headers: ownOrigin(),
 		data: {
 			...seed.input,
 			name: `${EDITABLE} (accessibility copy)`,

@@ -1,7 +1,7 @@
 import { DateTime } from 'luxon';
 import type { APIRequestContext, Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser, signIn, url } from './browser';
+import { launchBrowser, ownOrigin, signIn, url } from './browser';
 
 let browser: Browser;
 let closeBrowser: () => Promise<void>;
@@ -42,7 +42,11 @@ describe('booking tunnel time', () => {
 			CAMPAIGN
 		);
 		expect(
-			(await owner.context().request.post(url(`/api/v1/campaigns/${campaignId}/submit`))).status()
+			(
+				await owner
+					.context()
+					.request.post(url(`/api/v1/campaigns/${campaignId}/submit`), { headers: ownOrigin() })
+			).status()
 		).toBe(201);
 		const reviewer = await as('reviewer@demo.test');
 		const revision = (
@@ -53,6 +57,7 @@ describe('booking tunnel time', () => {
 		const approved = await reviewer
 			.context()
 			.request.post(url(`/api/v1/campaigns/${campaignId}/decisions`), {
+				headers: ownOrigin(),
 				data: { revision, verdict: 'approve', summary: '', notes: [] }
 			});
 		expect(approved.status()).toBe(201);
@@ -102,7 +107,10 @@ describe('booking tunnel time', () => {
 		};
 		const answers = await Promise.all(
 			Array.from({ length: 50 }, () =>
-				request.post(url(`/api/v1/facilities/${tunnelId}/bookings`), { data: slot })
+				request.post(url(`/api/v1/facilities/${tunnelId}/bookings`), {
+					data: slot,
+					headers: ownOrigin()
+				})
 			)
 		);
 		const statuses = answers.map((a) => a.status());

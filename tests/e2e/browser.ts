@@ -12,6 +12,11 @@ export function url(path: string): string {
 	return new URL(path, inject('baseUrl')).toString();
 }
 
+/** The Origin header a page of the app sends with its writes; cookie writes need it. */
+export function ownOrigin(): { origin: string } {
+	return { origin: new URL(url('/')).origin };
+}
+
 export async function signIn(page: Page, email: string, password = DEMO_PASSWORD): Promise<void> {
 	await page.goto(url('/signin'));
 	await page.getByLabel('E-mail').fill(email);

@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_READINGS } from '../../scripts/demo-scenario';
-import { launchBrowser, signedInPage, url } from './browser';
+import { launchBrowser, ownOrigin, signedInPage, url } from './browser';
 
 let browser: Browser;
 let closeBrowser: () => Promise<void>;
@@ -87,6 +87,7 @@ describe('readings', () => {
 			(c: { name: string }) => c.name === DEMO_READINGS.campaign
 		).id;
 		const created = await request.post(url('/api/v1/tokens'), {
+			headers: ownOrigin(),
 			data: { name: 'Plover scanner PC', scopes: ['readings:write', 'readings:read'] }
 		});
 		expect(created.status()).toBe(201);
@@ -109,7 +110,9 @@ describe('readings', () => {
 		expect(read.status).toBe(200);
 		expect((await read.json()).coverage.runs.missing).toBeLessThan(8);
 
-		const revoked = await request.delete(url(`/api/v1/tokens/${(await created.json()).id}`));
+		const revoked = await request.delete(url(`/api/v1/tokens/${(await created.json()).id}`), {
+			headers: ownOrigin()
+		});
 		expect(revoked.status()).toBe(204);
 		const refused = await fetch(url(`/api/v1/campaigns/${campaignId}/readings`), {
 			headers: { authorization: `Bearer ${token}` }

@@ -1,7 +1,7 @@
 import Database from 'better-sqlite3';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { launchBrowser, signIn, url } from './browser';
+import { launchBrowser, ownOrigin, signIn, url } from './browser';
 
 let browser: Browser;
 let closeBrowser: () => Promise<void>;
@@ -109,12 +109,14 @@ describe('review of a campaign', () => {
 		const first = await reviewer
 			.context()
 			.request.post(url(`/api/v1/campaigns/${waiting.id}/decisions`), {
+				headers: ownOrigin(),
 				data: { revision: waiting.revision, verdict: 'approve', summary: '', notes: [] }
 			});
 		expect(first.status()).toBe(201);
 		const again = await reviewer
 			.context()
 			.request.post(url(`/api/v1/campaigns/${waiting.id}/decisions`), {
+				headers: ownOrigin(),
 				data: { revision: waiting.revision, verdict: 'decline', summary: 'Too late.', notes: [] }
 			});
 		expect(again.status()).toBe(409);

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { DEMO_READINGS } from '../../scripts/demo-scenario';
 import { READINGS_MAX_BYTES } from '../../src/lib/schemas/readings';
-import { postCredentials, sessionCookie, url } from './browser';
+import { ownOrigin, postCredentials, sessionCookie, url } from './browser';
 
 describe('sign-in cannot be turned against the user', () => {
 	it('answers a wrong password posted straight to the credentials endpoint with the refusal, not 500', async () => {
@@ -103,5 +103,25 @@ describe('sessions', () => {
 		expect(signedOut.status).toBeLessThan(400);
 		// The same cookie, replayed as a thief would after the owner signed out.
 		expect((await me()).status).toBe(401);
+	});
+});
+
+describe('cookie-signed API writes', () => {
+	it('are taken only from the app’s own origin; token calls need none', async () => {
+		const cookie = await sessionCookie('aero@demo.test');
+		const body = JSON.stringify({ model: 'isa', geopotentialAltitude: { value: 5, unit: 'km' } });
+		const post = (headers: Record<string, string>) =>
+			fetch(url('/api/v1/calc/atmosphere'), {
+				method: 'POST',
+				headers: { cookie, 'content-type': 'application/json', ...headers },
+				body
+			});
+		const foreignOrigins: Record<string, string>[] = [{}, { origin: 'https://elsewhere.example' }];
+		for (const foreign of foreignOrigins) {
+			const refused = await post(foreign);
+			expect(refused.status).toBe(403);
+			expect((await refused.json()).error.code).toBe('cross-origin');
+		}
+		expect((await post(ownOrigin())).status).toBe(200);
 	});
 });

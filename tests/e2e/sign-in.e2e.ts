@@ -2,7 +2,7 @@ import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo-scenario';
 import { homePath } from '../../src/lib/roles';
-import { launchBrowser, signIn, url } from './browser';
+import { launchBrowser, ownOrigin, signIn, url } from './browser';
 
 let browser: Browser;
 let closeBrowser: () => Promise<void>;
@@ -23,7 +23,7 @@ describe('signing in', () => {
 			.poll(() => page.getByRole('note').textContent())
 			.toContain('Planning estimates only');
 
-		await page.getByRole('button', { name: 'Sign out' }).click();
+		await page.getByRole('button', { name: 'Sign out', exact: true }).click();
 		await page.waitForURL(/\/signin/);
 		await page.goto(url(homePath(account.roles)));
 		await page.waitForURL(/\/signin\?redirectTo=/);
@@ -103,7 +103,10 @@ describe('the API', () => {
 		const page = await context.newPage();
 		await signIn(page, 'aero@demo.test');
 		await page.waitForURL(url('/campaigns'));
-		const answer = await context.request.post(url('/api/v1/calc/atmosphere'), { data: body });
+		const answer = await context.request.post(url('/api/v1/calc/atmosphere'), {
+			data: body,
+			headers: ownOrigin()
+		});
 		expect(answer.status()).toBe(200);
 		// ISO 2533:1975 table 5 (from memory): H = 5000 m → 255.650 K, 0.736116 kg/m³.
 		const { air } = await answer.json();
