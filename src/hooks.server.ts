@@ -6,7 +6,7 @@ import {
 	type ServerInit
 } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
-import { apiError, tooLarge, type ApiErrorBody } from '$lib/server/api';
+import { apiError, tooLarge, tooLargeMessage } from '$lib/server/api';
 import { bodyLimitOf } from '$lib/server/body-limits';
 import { authHandle } from '$lib/server/auth';
 import { withinAbsoluteLifetime } from '$lib/server/auth/session-lifetime';
@@ -71,10 +71,7 @@ const rejectOversizedBodies: Handle = async ({ event, resolve }) => {
 	// the refusal instead of a connection reset while it is still sending.
 	await event.request.body?.pipeTo(new WritableStream()).catch(() => undefined);
 	// A page answers in words: the API's JSON error is not a form action's result.
-	const refusal = tooLarge(limit);
-	if (isApi(event.url)) return refusal;
-	const { error } = (await refusal.json()) as ApiErrorBody;
-	return text(error.message, { status: refusal.status });
+	return isApi(event.url) ? tooLarge(limit) : text(tooLargeMessage(limit), { status: 413 });
 };
 
 const FORM_MEDIA_TYPES = new Set(['application/x-www-form-urlencoded', 'multipart/form-data']);

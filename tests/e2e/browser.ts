@@ -2,6 +2,7 @@ import type { Browser, BrowserContextOptions, Page } from 'playwright-core';
 import { inject } from 'vitest';
 import { launchChromium } from '../../scripts/chromium';
 import { DEMO_PASSWORD } from '../../scripts/demo-scenario';
+import { postCredentials as postCredentialsTo, signInCookie } from './http-session';
 
 export async function launchBrowser(): Promise<{ browser: Browser; close: () => Promise<void> }> {
 	const browser = await launchChromium();
@@ -38,21 +39,10 @@ export async function signedInPage(
 
 /** Posts credentials straight to Auth.js, as a script without a browser does. */
 export function postCredentials(email: string, password = DEMO_PASSWORD): Promise<Response> {
-	return fetch(url('/auth/callback/credentials'), {
-		method: 'POST',
-		redirect: 'manual',
-		headers: {
-			'content-type': 'application/x-www-form-urlencoded',
-			origin: new URL(url('/')).origin
-		},
-		body: new URLSearchParams({ email, password })
-	});
+	return postCredentialsTo(inject('baseUrl'), email, password);
 }
 
 /** A session cookie for `email`. */
-export async function sessionCookie(email: string, password = DEMO_PASSWORD): Promise<string> {
-	return (await postCredentials(email, password)).headers
-		.getSetCookie()
-		.map((c) => c.split(';')[0])
-		.join('; ');
+export function sessionCookie(email: string, password = DEMO_PASSWORD): Promise<string> {
+	return signInCookie(inject('baseUrl'), email, password);
 }

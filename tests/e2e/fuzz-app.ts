@@ -3,7 +3,7 @@
  * time with its wall time, and the verdict on each answer.
  */
 import { request as httpRequest } from 'node:http';
-import { DEMO_PASSWORD } from '../../scripts/demo-scenario';
+import { signInCookie } from './http-session';
 
 export const ACTORS = ['aero', 'reviewer', 'operator', 'admin', 'anonymous'] as const;
 export type Actor = (typeof ACTORS)[number];
@@ -13,17 +13,7 @@ export type Sessions = Record<Actor, string>;
 export async function signInAll(baseUrl: string): Promise<Sessions> {
 	const sessions = { anonymous: '' } as Sessions;
 	for (const actor of ACTORS.filter((a) => a !== 'anonymous')) {
-		const answer = await fetch(new URL('/auth/callback/credentials', baseUrl), {
-			method: 'POST',
-			redirect: 'manual',
-			headers: { 'content-type': 'application/x-www-form-urlencoded', origin: baseUrl },
-			body: new URLSearchParams({ email: `${actor}@demo.test`, password: DEMO_PASSWORD })
-		});
-		const cookie = answer.headers
-			.getSetCookie()
-			.map((c) => c.split(';')[0])
-			.join('; ');
-		if (!cookie.includes('session-token')) throw new Error(`${actor} could not sign in.`);
+		const cookie = await signInCookie(baseUrl, `${actor}@demo.test`);
 		sessions[actor] = cookie;
 	}
 	return sessions;

@@ -7,13 +7,13 @@ import { DEMO_PASSWORD } from '../../scripts/demo-scenario';
 /** How a request proves who sends it: nothing, a session cookie, or a personal API token. */
 export type Credential = { cookie?: string; bearer?: string };
 
-/** Signs in as `email` and answers the session cookie pairs, ready for a `cookie` header. */
-export async function signInCookie(
+/** Posts credentials straight to Auth.js's endpoint, as a script without a browser does. */
+export function postCredentials(
 	baseUrl: string,
 	email: string,
 	password = DEMO_PASSWORD
-): Promise<string> {
-	const answer = await fetch(new URL('/auth/callback/credentials', baseUrl), {
+): Promise<Response> {
+	return fetch(new URL('/auth/callback/credentials', baseUrl), {
 		method: 'POST',
 		redirect: 'manual',
 		headers: {
@@ -22,7 +22,15 @@ export async function signInCookie(
 		},
 		body: new URLSearchParams({ email, password })
 	});
-	const cookie = answer.headers
+}
+
+/** Signs in as `email` and answers the session cookie pairs, ready for a `cookie` header. */
+export async function signInCookie(
+	baseUrl: string,
+	email: string,
+	password = DEMO_PASSWORD
+): Promise<string> {
+	const cookie = (await postCredentials(baseUrl, email, password)).headers
 		.getSetCookie()
 		.map((c) => c.split(';')[0])
 		.join('; ');

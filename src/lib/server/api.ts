@@ -89,12 +89,12 @@ export async function readBody(request: Request, limit_bytes: number): Promise<U
 	return Buffer.concat(chunks, size);
 }
 
+export function tooLargeMessage(limit_bytes = MAX_REQUEST_BODY_BYTES): string {
+	return `The request body is over ${(limit_bytes / 1024 / 1024).toFixed(1)} MiB.`;
+}
+
 export function tooLarge(limit_bytes = MAX_REQUEST_BODY_BYTES): Response {
-	return apiError(
-		413,
-		'too-large',
-		`The request body is over ${(limit_bytes / 1024 / 1024).toFixed(1)} MiB.`
-	);
+	return apiError(413, 'too-large', tooLargeMessage(limit_bytes));
 }
 
 /**
