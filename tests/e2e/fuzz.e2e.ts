@@ -1,7 +1,8 @@
 /**
  * Fuzz over every JSON route and every form action, found on the file system: bad input never
  * costs a 5xx, an API refusal is always `{ error: { code, message, fields? } }`, a form action
- * answers a refusal status, and the known worst requests stay within the time budget.
+ * answers a refusal status, and the known worst requests stay within the time budget while a
+ * concurrent probe never waits more than 100 ms for the event loop.
  * `FUZZ_RUNS` sets the runs per target (`npm run fuzz` runs 500), `FUZZ_SEED` replays a run.
  */
 import fc from 'fast-check';
@@ -13,18 +14,22 @@ import { discoverTargets, targetName } from './fuzz-routes';
 import { findFixture, type Fixture } from './fuzz-fixture';
 import { paramsFor, primaryActor, samples } from './fuzz-samples';
 import { worstCases } from './fuzz-worst-cases';
+import { probeEventLoop } from './loop-probe';
 
 const RUNS = Number(process.env.FUZZ_RUNS ?? 20);
 const SEED = process.env.FUZZ_SEED ? Number(process.env.FUZZ_SEED) : undefined;
 /**
- * Server time allowed for one request, measured as wall time on loopback; the best of three
- * tries, so a busy shared machine does not count against the app.
+ * Server time allowed for one request, measured as wall time on loopback, and the longest one
+ * request may hold the event loop (README, Security); the best of three tries, so a busy shared
+ * machine does not count against the app.
  */
 const BUDGET_MS = 100;
 
 const targets = discoverTargets();
 const exchanges: Exchange[] = [];
 const failures: string[] = [];
+/** The longest wait a concurrent probe saw while each worst request was served. */
+const heldLoop: string[] = [];
 
 let app: RunningApp;
 let sessions: Sessions;
@@ -46,6 +51,7 @@ afterAll(async () => {
 				(e) =>
 					`  ${e.ms.toFixed(0).padStart(6)} ms  ${e.status}  ${e.target}  ${e.request.slice(0, 160)}`
 			),
+			...(heldLoop.length ? ['event loop held, worst requests:', ...heldLoop] : []),
 			...(failures.length ? ['failing:', ...failures] : [])
 		].join('\n')
 	);
@@ -83,19 +89,25 @@ describe('every route takes bad input without a server error', () => {
 });
 
 describe('the known worst requests are refused or answered in time', () => {
-	it('answers each within the budget without a server error', async () => {
+	it('answers each within the budget, holding the event loop no more than 100 ms', async () => {
 		const report: string[] = [];
 		for (const { name, target, request, budget_ms = BUDGET_MS } of worstCases(fx)) {
-			const tries: Exchange[] = [];
+			const tries: (Exchange & { held_ms: number })[] = [];
+			const inBudget = (t: Exchange & { held_ms: number }) =>
+				t.ms <= budget_ms && t.held_ms <= BUDGET_MS;
 			// Up to three tries, the best one counting: a busy machine can slow any single one.
-			while (tries.length < 3 && !tries.some((t) => t.problem || t.ms <= budget_ms))
-				tries.push(await execute(target, request, app.baseUrl, sessions));
+			while (tries.length < 3 && !tries.some((t) => t.problem || inBudget(t))) {
+				const probe = await probeEventLoop(app.baseUrl);
+				const exchange = await execute(target, request, app.baseUrl, sessions);
+				tries.push({ ...exchange, held_ms: await probe.stop() });
+			}
 			exchanges.push(...tries);
-			const best = Math.min(...tries.map((t) => t.ms));
+			const best = tries.reduce((a, b) => (a.ms + a.held_ms <= b.ms + b.held_ms ? a : b));
+			heldLoop.push(`${best.held_ms.toFixed(0).padStart(6)} ms  ${name}`);
 			const problem = tries.find((t) => t.problem)?.problem;
-			if (problem || best > budget_ms)
+			if (problem || !inBudget(best))
 				report.push(
-					`${name}: ${tries.at(-1)!.status}, best ${best.toFixed(0)} ms of ${tries.length}${problem ? `, ${problem}` : ''}`
+					`${name}: ${best.status}, best ${best.ms.toFixed(0)} ms with the event loop held up to ${best.held_ms.toFixed(0)} ms, of ${tries.length}${problem ? `, ${problem}` : ''}`
 				);
 		}
 		failures.push(...report.map((r) => `  worst case ${r}`));

@@ -1,7 +1,7 @@
 import { fail, redirect, type RequestEvent } from '@sveltejs/kit';
-import { setError, superValidate, type SuperValidated } from 'sveltekit-superforms';
-import { zod4 } from 'sveltekit-superforms/adapters';
+import { setError, type SuperValidated } from 'sveltekit-superforms';
 import { campaignSchema, type CampaignInput } from '../schemas/campaign';
+import { validatePosted } from './forms';
 import type { Refusal } from './outcome';
 import { STATUS_OF_REFUSAL } from './outcome';
 
@@ -16,10 +16,7 @@ export async function saveCampaignForm(
 	save: (input: CampaignInput) => { ok: true; id?: string } | Refusal,
 	redirectTo: (id: string | undefined) => string
 ) {
-	const form: SuperValidated<CampaignInput> = await superValidate(
-		event.request,
-		zod4(campaignSchema)
-	);
+	const form: SuperValidated<CampaignInput> = await validatePosted(event.request, campaignSchema);
 	if (!form.valid) return fail(400, { form });
 	const saved = save(form.data);
 	if (!saved.ok) {

@@ -6,7 +6,7 @@ import { createApiToken, listApiTokens, revokeApiToken } from '$lib/server/api-t
 import { requireUser } from '$lib/server/guards';
 import { STATUS_OF_REFUSAL } from '$lib/server/outcome';
 import type { Actions, PageServerLoad } from './$types';
-import { postedForm } from '$lib/server/forms';
+import { postedForm, validatePosted } from '$lib/server/forms';
 
 export type CreatedTokenMessage = { name: string; token: string };
 
@@ -29,7 +29,7 @@ export const actions: Actions = {
 	// The secret travels back once, in this answer; only its hash is stored.
 	create: async ({ locals, request }) => {
 		const user = requireUser(locals);
-		const form = await superValidate(request, zod4(apiTokenSchema), { id: FORM_ID });
+		const form = await validatePosted(request, apiTokenSchema, { id: FORM_ID });
 		if (!form.valid) return fail(400, { tokenForm: form });
 		const created = createApiToken(locals.db, user, form.data);
 		if (!created.ok) {

@@ -7,6 +7,7 @@ import { SIGN_IN_MESSAGES, type SignInRefusal } from '$lib/server/auth/credentia
 import { sameOriginPath } from '$lib/server/auth/redirect';
 import { signInWithPassword } from '$lib/server/auth/sign-in';
 import type { Actions, PageServerLoad } from './$types';
+import { validatePosted } from '$lib/server/forms';
 
 export const load: PageServerLoad = async ({ locals, url }) => {
 	const form = await superValidate(
@@ -28,7 +29,7 @@ const STATUS_OF_REFUSAL = { credentials: 400, deactivated: 403, throttled: 429 }
 
 export const actions: Actions = {
 	default: async (event) => {
-		const form = await superValidate(event.request, zod4(signInSchema));
+		const form = await validatePosted(event.request, signInSchema);
 		const { email, password, redirectTo } = form.data;
 		// The password never travels back to the browser.
 		form.data.password = '';

@@ -5,6 +5,7 @@ import { facilityDefaults, facilitySchema } from '$lib/schemas/facility';
 import { createFacility } from '$lib/server/facilities';
 import { requirePermission } from '$lib/server/guards';
 import type { Actions, PageServerLoad } from './$types';
+import { validatePosted } from '$lib/server/forms';
 
 export const load: PageServerLoad = async ({ locals }) => {
 	requirePermission(locals, 'edit-facilities');
@@ -14,7 +15,7 @@ export const load: PageServerLoad = async ({ locals }) => {
 export const actions: Actions = {
 	default: async ({ locals, request }) => {
 		requirePermission(locals, 'edit-facilities');
-		const form = await superValidate(request, zod4(facilitySchema));
+		const form = await validatePosted(request, facilitySchema);
 		if (!form.valid) return fail(400, { form });
 		const created = createFacility(locals.db, form.data);
 		if (!created.ok) return setError(form, 'name', created.message, { status: 409 });

@@ -6,6 +6,7 @@ import { requireRole } from '$lib/server/guards';
 import { createModel } from '$lib/server/models';
 import { STATUS_OF_REFUSAL } from '$lib/server/outcome';
 import type { Actions, PageServerLoad } from './$types';
+import { validatePosted } from '$lib/server/forms';
 
 export const load: PageServerLoad = async ({ locals }) => {
 	const user = requireRole(locals, 'aerodynamicist');
@@ -25,7 +26,7 @@ export const load: PageServerLoad = async ({ locals }) => {
 export const actions: Actions = {
 	default: async ({ locals, request }) => {
 		const user = requireRole(locals, 'aerodynamicist');
-		const form = await superValidate(request, zod4(scaleModelSchema));
+		const form = await validatePosted(request, scaleModelSchema);
 		if (!form.valid) return fail(400, { form });
 		const created = createModel(locals.db, user, form.data);
 		if (!created.ok) {

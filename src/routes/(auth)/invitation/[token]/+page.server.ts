@@ -5,6 +5,7 @@ import { setPasswordSchema } from '$lib/schemas/user';
 import { signInWithPassword } from '$lib/server/auth/sign-in';
 import { acceptInvitation, invitationForToken } from '$lib/server/users';
 import type { Actions, PageServerLoad } from './$types';
+import { validatePosted } from '$lib/server/forms';
 
 export const load: PageServerLoad = async ({ locals, params }) => ({
 	invitee: invitationForToken(locals.db, params.token),
@@ -13,7 +14,7 @@ export const load: PageServerLoad = async ({ locals, params }) => ({
 
 export const actions: Actions = {
 	default: async (event) => {
-		const form = await superValidate(event.request, zod4(setPasswordSchema));
+		const form = await validatePosted(event.request, setPasswordSchema);
 		const { password } = form.data;
 		form.data.password = form.data.confirm = '';
 		if (!form.valid) return fail(400, { form });

@@ -29,7 +29,7 @@ import { getFacility } from '$lib/server/facilities';
 import { requirePermission, requireUser } from '$lib/server/guards';
 import { refuse, STATUS_OF_REFUSAL, type Outcome } from '$lib/server/outcome';
 import type { Actions, PageServerLoad } from './$types';
-import { postedForm } from '$lib/server/forms';
+import { postedForm, validatePosted } from '$lib/server/forms';
 
 /** Each campaign's booking form has its own id, so a refusal lands in that campaign's form. */
 const bookFormId = (campaignId: string) => `book-${campaignId}`;
@@ -137,7 +137,7 @@ export const actions: Actions = {
 		const { user, facility } = bookersFacility(locals, params.id);
 		const posted = await postedForm(request);
 		if (!posted) return fail(400, { stepError: 'The form could not be read.' });
-		const form = await superValidate(posted, zod4(bookingFormSchema), {
+		const form = await validatePosted(posted, bookingFormSchema, {
 			id: bookFormId(String(posted.get('campaignId') ?? ''))
 		});
 		if (!form.valid) return fail(400, { form });
@@ -160,7 +160,7 @@ export const actions: Actions = {
 		const bookingId = String(posted.get('bookingId') ?? '');
 		const found = findBookingFor(locals.db, user, bookingId, facility.id);
 		if (!found.ok) error(STATUS_OF_REFUSAL[found.code], { message: found.message });
-		const form = await superValidate(posted, zod4(bookingMoveFormSchema), {
+		const form = await validatePosted(posted, bookingMoveFormSchema, {
 			id: `move-${bookingId}`
 		});
 		if (!form.valid) return fail(400, { form });
@@ -192,7 +192,7 @@ export const actions: Actions = {
 
 	close: async ({ locals, params, request }) => {
 		const { user, facility } = bookersFacility(locals, params.id);
-		const form = await superValidate(request, zod4(closureFormSchema), { id: CLOSURE_FORM_ID });
+		const form = await validatePosted(request, closureFormSchema, { id: CLOSURE_FORM_ID });
 		if (!form.valid) return fail(400, { form });
 		return saveSlotForm(
 			form,

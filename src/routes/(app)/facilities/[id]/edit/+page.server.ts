@@ -6,6 +6,7 @@ import { getFacility, updateFacility } from '$lib/server/facilities';
 import { requireRole } from '$lib/server/guards';
 import { STATUS_OF_REFUSAL } from '$lib/server/outcome';
 import type { Actions, PageServerLoad } from './$types';
+import { validatePosted } from '$lib/server/forms';
 
 export const load: PageServerLoad = async ({ locals, params }) => {
 	requireRole(locals, 'operator', 'admin');
@@ -23,7 +24,7 @@ export const actions: Actions = {
 	default: async ({ locals, params, request }) => {
 		requireRole(locals, 'operator', 'admin');
 		if (!getFacility(locals.db, params.id)) error(404, { message: 'No such facility.' });
-		const form = await superValidate(request, zod4(facilitySchema));
+		const form = await validatePosted(request, facilitySchema);
 		if (!form.valid) return fail(400, { form });
 		const saved = updateFacility(locals.db, params.id, form.data);
 		if (!saved.ok)

@@ -6,6 +6,7 @@ import { requireRole } from '$lib/server/guards';
 import { getModelFor, updateModel, writableModel } from '$lib/server/models';
 import { STATUS_OF_REFUSAL } from '$lib/server/outcome';
 import type { Actions, PageServerLoad } from './$types';
+import { validatePosted } from '$lib/server/forms';
 
 export const load: PageServerLoad = async ({ locals, params }) => {
 	const user = requireRole(locals, 'aerodynamicist');
@@ -23,7 +24,7 @@ export const actions: Actions = {
 		const user = requireRole(locals, 'aerodynamicist');
 		const writable = writableModel(locals.db, user, params.id);
 		if (!writable.ok) error(404, { message: writable.message });
-		const form = await superValidate(request, zod4(scaleModelSchema));
+		const form = await validatePosted(request, scaleModelSchema);
 		if (!form.valid) return fail(400, { form });
 		const saved = updateModel(locals.db, user, params.id, form.data);
 		if (!saved.ok) {

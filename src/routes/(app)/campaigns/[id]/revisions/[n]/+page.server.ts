@@ -10,6 +10,7 @@ import { STATUS_OF_REFUSAL } from '$lib/server/outcome';
 import { decideRevision, decisionAccess, getRevision } from '$lib/server/review';
 import { availableActions } from '$lib/workflow';
 import type { Actions, PageServerLoad } from './$types';
+import { validatePosted } from '$lib/server/forms';
 
 export const load: PageServerLoad = async ({ locals, params }) => {
 	const user = requireUser(locals);
@@ -49,7 +50,7 @@ export const actions: Actions = {
 		const user = requirePermission(locals, 'decide-campaigns');
 		const allowed = decisionAccess(locals.db, user, params.id);
 		if (!allowed.ok) error(STATUS_OF_REFUSAL[allowed.code], { message: allowed.message });
-		const form = await superValidate(request, zod4(decisionSchema));
+		const form = await validatePosted(request, decisionSchema);
 		if (!form.valid) return fail(400, { form });
 		const decided = decideRevision(locals.db, user, params.id, form.data, url.origin);
 		if (!decided.ok)
