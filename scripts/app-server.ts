@@ -22,11 +22,22 @@ function freePort(): Promise<number> {
 	});
 }
 
-export type RunningApp = { baseUrl: string; databasePath: string; stop: () => Promise<void> };
+export type RunningApp = {
+	baseUrl: string;
+	/** One address per server process, all on the same database; the first is `baseUrl`. */
+	baseUrls: string[];
+	databasePath: string;
+	stop: () => Promise<void>;
+};
 
+/**
+ * `processes` above 1 starts that many servers on the one database file, sharing the signing
+ * secret, as a deployment with several processes on one host runs them.
+ */
 export async function startSeededApp({
-	quiet = false
-}: { quiet?: boolean } = {}): Promise<RunningApp> {
+	quiet = false,
+	processes = 1
+}: { quiet?: boolean; processes?: number } = {}): Promise<RunningApp> {
 	if (!existsSync('build/index.js'))
 		throw new Error('Run `vite build` first: build/index.js is missing.');
 	const dir = mkdtempSync(join(tmpdir(), 'tunnelwright-app-'));
@@ -41,16 +52,31 @@ export async function startSeededApp({
 		stdio: quiet ? 'ignore' : 'inherit'
 	});
 
+	const secret = randomBytes(32).toString('base64url');
+	const servers: { baseUrl: string; server: ReturnType<typeof spawn> }[] = [];
+	for (let i = 0; i < processes; i++) servers.push(await startServer(env, secret, quiet));
+
+	return {
+		baseUrl: servers[0]!.baseUrl,
+		baseUrls: servers.map((s) => s.baseUrl),
+		databasePath,
+		stop: async () => {
+			await Promise.all(
+				servers.map(({ server }) => {
+					server.kill('SIGTERM');
+					return new Promise((r) => server.once('exit', r));
+				})
+			);
+			rmSync(dir, { recursive: true, force: true });
+		}
+	};
+}
+
+async function startServer(env: NodeJS.ProcessEnv, secret: string, quiet: boolean) {
 	const port = await freePort();
 	const baseUrl = `http://127.0.0.1:${port}`;
 	const server = spawn(process.execPath, ['scripts/serve.js'], {
-		env: {
-			...env,
-			HOST: '127.0.0.1',
-			PORT: String(port),
-			ORIGIN: baseUrl,
-			AUTH_SECRET: randomBytes(32).toString('base64url')
-		},
+		env: { ...env, HOST: '127.0.0.1', PORT: String(port), ORIGIN: baseUrl, AUTH_SECRET: secret },
 		stdio: ['ignore', quiet ? 'ignore' : 'inherit', 'inherit']
 	});
 
@@ -65,14 +91,5 @@ export async function startSeededApp({
 		if (Date.now() > deadline) throw new Error(`The app did not answer at ${baseUrl} within 30 s`);
 		await new Promise((r) => setTimeout(r, 200));
 	}
-
-	return {
-		baseUrl,
-		databasePath,
-		stop: async () => {
-			server.kill('SIGTERM');
-			await new Promise((r) => server.once('exit', r));
-			rmSync(dir, { recursive: true, force: true });
-		}
-	};
+	return { baseUrl, server };
 }

@@ -14,6 +14,8 @@ declare global {
 			user: SessionUser | null;
 			/** The personal API token this request was signed in with; null for a session. */
 			apiToken: { id: string; scopes: ApiTokenScope[] } | null;
+			/** Set when the database stayed busy past its timeout; the answer becomes 503. */
+			databaseBusy?: boolean;
 		}
 	}
 }

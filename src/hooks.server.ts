@@ -13,6 +13,7 @@ import { withinAbsoluteLifetime } from '$lib/server/auth/session-lifetime';
 import { authenticateBearer } from '$lib/server/auth/bearer';
 import { retryAfterSeconds, throttleKeys } from '$lib/server/auth/throttle';
 import { getDb } from '$lib/server/db';
+import { busyResponse, isDatabaseBusy } from '$lib/server/db/busy';
 import { startMail } from '$lib/server/mail';
 import { sessionUser } from '$lib/server/users';
 
@@ -29,6 +30,21 @@ const attachDatabase: Handle = ({ event, resolve }) => {
 };
 
 const isApi = (url: URL) => url.pathname.startsWith('/api/');
+
+/**
+ * A request whose write waited out the busy timeout behind another process answers 503 with
+ * Retry-After; `handleError` marks it, since the framework has already made it a 500.
+ */
+const answerBusyDatabase: Handle = async ({ event, resolve }) => {
+	try {
+		const response = await resolve(event);
+		return event.locals.databaseBusy ? busyResponse(isApi(event.url)) : response;
+	} catch (error) {
+		// A hook's own write (the sign-in throttle, say) fails here, before any route ran.
+		if (isDatabaseBusy(error)) return busyResponse(isApi(event.url));
+		throw error;
+	}
+};
 
 const CODE_OF_STATUS: Record<number, string> = {
 	400: 'invalid',
@@ -157,6 +173,7 @@ const sendSignedOutToSignIn: Handle = ({ event, resolve }) => {
 
 export const handle = sequence(
 	attachDatabase,
+	answerBusyDatabase,
 	shapeApiErrors,
 	rejectOversizedBodies,
 	refuseNonFormPosts,
@@ -168,7 +185,8 @@ export const handle = sequence(
 	sendSignedOutToSignIn
 );
 
-export const handleError: HandleServerError = ({ error, status, message }) => {
-	if (status >= 500) console.error(error);
+export const handleError: HandleServerError = ({ error, event, status, message }) => {
+	if (isDatabaseBusy(error)) event.locals.databaseBusy = true;
+	else if (status >= 500) console.error(error);
 	return { message: status >= 500 ? 'Something went wrong on the server.' : message };
 };

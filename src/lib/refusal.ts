@@ -4,7 +4,7 @@
  */
 export type Refusal = {
 	ok: false;
-	code: 'not-found' | 'conflict' | 'forbidden' | 'invalid';
+	code: 'not-found' | 'conflict' | 'forbidden' | 'invalid' | 'stale';
 	message: string;
 	field?: string;
 };

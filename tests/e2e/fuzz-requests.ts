@@ -26,7 +26,15 @@ export type FuzzRequest = {
 	body: Body;
 	contentType: string;
 	accept: string;
+	/** The version a write says it read; mostly `*`, so a PUT reaches its body. */
+	ifMatch?: string;
 };
+
+const ifMatchChoice = fc.oneof(
+	{ weight: 6, arbitrary: fc.constant('*') },
+	fc.constantFrom(undefined, '"1"', '"999999999"', 'W/"1"', '1', '"-1"', '"1", "2"', ''),
+	fc.string({ maxLength: 40 })
+);
 
 /** Odd record ids; none empty or `..`, which the client's URL parser would fold away. */
 const ODD_SEGMENTS = ['NaN', '-0', '1e309', '0', '%00', '%F0%9F%8C%AC', '%E2%80%AE', '%ZZ', ' '];
@@ -72,6 +80,7 @@ export function requestFor(
 		query: fc.array(queryPair, { maxLength: reads ? 4 : 1 }),
 		body: reads ? fc.constant({ encoding: 'none' as const }) : bodyFor(sample ?? { kind: 'none' }),
 		contentType: contentTypeChoice,
+		ifMatch: ifMatchChoice,
 		accept:
 			target.kind === 'action'
 				? fc.constantFrom('application/json', 'application/json', 'text/html', '*/*')
@@ -114,6 +123,7 @@ export async function execute(
 	const { bytes, mediaType } = await encode(request.body);
 	const headers: Record<string, string> = { accept: request.accept, origin: baseUrl };
 	if (sessions[request.actor]) headers.cookie = sessions[request.actor];
+	if (request.ifMatch !== undefined) headers['if-match'] = request.ifMatch;
 	const contentType = request.contentType === 'own' ? mediaType : request.contentType;
 	if (contentType !== null && contentType !== 'none') headers['content-type'] = contentType;
 	const method =

@@ -68,7 +68,11 @@ describe('the API authorizes before it validates the body', () => {
 		expect((await call(campaignItem.PUT, db, w.aeroA2, { params, body: INVALID })).status).toBe(
 			403
 		);
-		const own = await call(campaignItem.PUT, db, w.aeroA, { params, body: INVALID });
+		const own = await call(campaignItem.PUT, db, w.aeroA, {
+			params,
+			body: INVALID,
+			headers: { 'if-match': '"1"' }
+		});
 		expect(own.status).toBe(400);
 		expect(own.body.error.fields).toBeDefined();
 	});

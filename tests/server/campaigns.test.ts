@@ -116,15 +116,15 @@ describe('campaign drafts', () => {
 		const created = createCampaign(db, w.aeroA, w.input());
 		if (!created.ok) throw new Error(created.message);
 		const renamed = { ...w.input(), name: 'Renamed sweep' };
-		expect(updateCampaign(db, w.aeroA2, created.id, renamed)).toMatchObject({
+		expect(updateCampaign(db, w.aeroA2, created.id, renamed, 1)).toMatchObject({
 			ok: false,
 			code: 'forbidden'
 		});
-		expect(updateCampaign(db, w.aeroB, created.id, renamed)).toMatchObject({
+		expect(updateCampaign(db, w.aeroB, created.id, renamed, 1)).toMatchObject({
 			ok: false,
 			code: 'not-found'
 		});
-		expect(updateCampaign(db, w.aeroA, created.id, renamed)).toEqual({ ok: true });
+		expect(updateCampaign(db, w.aeroA, created.id, renamed, 1)).toEqual({ ok: true, version: 2 });
 		expect(getCampaignFor(db, w.aeroA, created.id)?.name).toBe('Renamed sweep');
 		expect(deleteCampaign(db, w.aeroB, created.id)).toMatchObject({ code: 'not-found' });
 		expect(deleteCampaign(db, w.aeroA2, created.id)).toMatchObject({ code: 'forbidden' });

@@ -68,6 +68,7 @@ describe('the resource API enforces roles and teams', () => {
 			'facilityName',
 			'lastRevision',
 			'approvedRevisionId',
+			'version',
 			'createdAt',
 			'updatedAt'
 		]);
@@ -76,11 +77,13 @@ describe('the resource API enforces roles and teams', () => {
 		const written = await call(campaignItem.PUT, db, w.aeroA, {
 			method: 'PUT',
 			params,
-			body: { ...changed, id: 'someone-else', state: 'approved', lastRevision: 7 }
+			headers: { 'if-match': read.headers.get('etag')! },
+			body: { ...changed, id: 'someone-else', state: 'approved', lastRevision: 7, version: 9 }
 		});
 		expect(written.status).toBe(200);
 		const after = await call(campaignItem.GET, db, w.aeroA, { params });
-		expect({ ...after.body, updatedAt: changed.updatedAt }).toEqual(changed);
+		expect(after.headers.get('etag')).toBe('"2"');
+		expect({ ...after.body, updatedAt: changed.updatedAt }).toEqual({ ...changed, version: 2 });
 	});
 
 	it('answers 400 with field messages and writes nothing on bad input', async () => {

@@ -60,7 +60,12 @@ describe('submitting', () => {
 		expect(submitCampaign(db, w.aeroB, id, ORIGIN)).toMatchObject({ ok: false, code: 'not-found' });
 		submitCampaign(db, w.aeroA, id, ORIGIN);
 		expect(submitCampaign(db, w.aeroA, id, ORIGIN)).toMatchObject({ ok: false, code: 'conflict' });
-		expect(updateCampaign(db, w.aeroA, id, w.input())).toMatchObject({
+		expect(updateCampaign(db, w.aeroA, id, w.input(), 1)).toMatchObject({
+			ok: false,
+			code: 'conflict',
+			message: expect.stringMatching(/only a draft/i)
+		});
+		expect(updateCampaign(db, w.aeroA2, id, w.input(), 1)).toMatchObject({
 			ok: false,
 			code: 'forbidden'
 		});
@@ -175,7 +180,7 @@ describe('deciding', () => {
 			speeds_mps: w.input().speeds_mps.filter((v) => v !== 55),
 			yawAngles_deg: [0, 5]
 		};
-		expect(updateCampaign(db, w.aeroA, id, fixed)).toEqual({ ok: true });
+		expect(updateCampaign(db, w.aeroA, id, fixed, 'any')).toMatchObject({ ok: true });
 		expect(submitCampaign(db, w.aeroA, id, ORIGIN)).toEqual({ ok: true, revision: 2 });
 		const diff = diffRevisions(
 			getRevision(db, w.reviewer, id, 1)!.snapshot,

@@ -2,7 +2,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { expect, it } from 'vitest';
-import { migrateDatabase, openDatabase } from '../../src/lib/server/db/open';
+import { BUSY_TIMEOUT_MS, migrateDatabase, openDatabase } from '../../src/lib/server/db/open';
 import { storedSecret } from '../../src/lib/server/settings';
 
 it('keeps the generated session secret across a restart, so sessions survive it', () => {
@@ -31,7 +31,7 @@ it('opens with WAL, foreign keys and a busy timeout', () => {
 		const db = openDatabase(join(dir, 'app.db'));
 		expect(db.$client.pragma('journal_mode', { simple: true })).toBe('wal');
 		expect(db.$client.pragma('foreign_keys', { simple: true })).toBe(1);
-		expect(db.$client.pragma('busy_timeout', { simple: true })).toBe(5000);
+		expect(db.$client.pragma('busy_timeout', { simple: true })).toBe(BUSY_TIMEOUT_MS);
 		db.$client.close();
 	} finally {
 		rmSync(dir, { recursive: true, force: true });

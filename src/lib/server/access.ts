@@ -80,13 +80,15 @@ export function readableCampaigns(viewer: SessionUser): SQL | undefined {
 }
 
 /** Only the owner edits, and only while the campaign is a draft. */
-export function canEditCampaign(viewer: SessionUser, c: CampaignAccessFacts): boolean {
+/** The owner, as an aerodynamicist of the campaign's team, whatever state it is in. */
+export function ownsCampaign(viewer: SessionUser, c: CampaignAccessFacts): boolean {
 	return (
-		c.state === 'draft' &&
-		c.ownerId === viewer.id &&
-		viewer.roles.includes('aerodynamicist') &&
-		inTeam(viewer, c.teamId)
+		c.ownerId === viewer.id && viewer.roles.includes('aerodynamicist') && inTeam(viewer, c.teamId)
 	);
+}
+
+export function canEditCampaign(viewer: SessionUser, c: CampaignAccessFacts): boolean {
+	return c.state === 'draft' && ownsCampaign(viewer, c);
 }
 
 /** The viewer as the campaign workflow sees them: their roles and whether they own it. */

@@ -3,13 +3,21 @@ import type { z } from 'zod';
 import { CalcInputError } from '../calc';
 import { requestWording } from '../schemas/calc';
 import { requireUser } from './guards';
+import type { StaleDetail } from '../versions';
 import { STATUS_OF_REFUSAL, type Refusal } from './outcome';
+import { entityTag, type StaleRefusal } from './versions';
 
 /** Largest request body the app reads; a campaign definition is far smaller. */
 export const MAX_REQUEST_BODY_BYTES = 1024 * 1024;
 
 export type ApiErrorBody = {
-	error: { code: string; message: string; fields?: Record<string, string[]> };
+	error: {
+		code: string;
+		message: string;
+		fields?: Record<string, string[]>;
+		/** With 412: the stored version now, who saved it and what changed since the caller read. */
+		stale?: StaleDetail;
+	};
 };
 
 export function apiError(
@@ -22,7 +30,13 @@ export function apiError(
 	return json(body, { status });
 }
 
-export function refusalResponse(refusal: Refusal): Response {
+export function refusalResponse(refusal: Refusal | StaleRefusal): Response {
+	if ('stale' in refusal) {
+		const body: ApiErrorBody = {
+			error: { code: refusal.code, message: refusal.message, stale: refusal.stale }
+		};
+		return json(body, { status: 412, headers: { etag: entityTag(refusal.stale.version) } });
+	}
 	const fields = refusal.field ? { [refusal.field]: [refusal.message] } : undefined;
 	return apiError(STATUS_OF_REFUSAL[refusal.code], refusal.code, refusal.message, fields);
 }

@@ -2,12 +2,13 @@ import { desc, eq } from 'drizzle-orm';
 import { settingFindings } from '../calc';
 import type { SessionUser } from '../roles';
 import type { CampaignDefinition, CampaignInput } from '../schemas/campaign';
-import { can, canEditCampaign, canReadCampaign, readableCampaigns } from './access';
-import type { Db } from './db/open';
+import { can, canEditCampaign, canReadCampaign, ownsCampaign, readableCampaigns } from './access';
+import { writeTransaction, type Db, type DbOrTx } from './db/open';
 import { campaign, facility, scaleModel, team, user } from './db/schema';
 import { getFacility, type Facility } from './facilities';
 import { getModelFor, type ScaleModel } from './models';
 import { refuse, type Outcome } from './outcome';
+import { claimVersion, forgetHistory, type BaseVersion, type StaleRefusal } from './versions';
 
 export type Campaign = typeof campaign.$inferSelect;
 export type CampaignListing = Pick<
@@ -55,7 +56,7 @@ export function listCampaignsFor(db: Db, viewer: SessionUser): CampaignListing[]
 
 /** The campaign with its model and facility if the viewer may read it; else undefined (404). */
 export function getCampaignFor(
-	db: Db,
+	db: DbOrTx,
 	viewer: SessionUser,
 	id: string
 ): CampaignDetail | undefined {
@@ -91,7 +92,7 @@ function facilityMisfit(input: CampaignInput, f: Facility) {
 	return refuse('invalid', `${f.name}: ${misfit.message}`, field);
 }
 
-function resolveLinks(db: Db, viewer: SessionUser, input: CampaignInput) {
+function resolveLinks(db: DbOrTx, viewer: SessionUser, input: CampaignInput) {
 	const model = getModelFor(db, viewer, input.modelId);
 	if (!model) return refuse('invalid', 'Choose one of your team’s models.', 'modelId');
 	const f = getFacility(db, input.facilityId);
@@ -106,14 +107,21 @@ export function createCampaign(
 ): Outcome<{ id: string }> {
 	if (!can(viewer, 'draft-campaigns'))
 		return refuse('forbidden', 'Only aerodynamicists draft campaigns.');
-	const links = resolveLinks(db, viewer, input);
-	if (!links.ok) return links;
-	const { id } = db
-		.insert(campaign)
-		.values({ ...split(input), teamId: links.model.teamId, ownerId: viewer.id })
-		.returning({ id: campaign.id })
-		.get();
-	return { ok: true, id };
+	return writeTransaction(db, (tx) => {
+		const links = resolveLinks(tx, viewer, input);
+		if (!links.ok) return links;
+		const { id } = tx
+			.insert(campaign)
+			.values({
+				...split(input),
+				teamId: links.model.teamId,
+				ownerId: viewer.id,
+				updatedBy: viewer.id
+			})
+			.returning({ id: campaign.id })
+			.get();
+		return { ok: true, id };
+	});
 }
 
 /**
@@ -121,46 +129,61 @@ export function createCampaign(
  * they read but do not own the draft. Routes ask this before they read a request body.
  */
 export function editableCampaign(
-	db: Db,
+	db: DbOrTx,
 	viewer: SessionUser,
 	id: string
 ): Outcome<{ campaign: Campaign }> {
 	const existing = db.select().from(campaign).where(eq(campaign.id, id)).get();
 	if (!existing || !canReadCampaign(viewer, existing))
 		return refuse('not-found', 'No such campaign.');
-	if (!canEditCampaign(viewer, existing))
+	if (!ownsCampaign(viewer, existing))
 		return refuse('forbidden', 'Only the owner can change a draft.');
+	// The owner may edit, but not now: the state, not the person, is what refuses.
+	if (existing.state !== 'draft')
+		return refuse('conflict', `Only a draft can be changed; this campaign is ${existing.state}.`);
 	return { ok: true, campaign: existing };
 }
 
+/**
+ * Writes the draft if `base` is still its stored version: the check and the write are one
+ * immediate transaction, so of two writers who read the same version exactly one wins.
+ */
 export function updateCampaign(
 	db: Db,
 	viewer: SessionUser,
 	id: string,
-	input: CampaignInput
-): Outcome {
-	const editable = editableCampaign(db, viewer, id);
-	if (!editable.ok) return editable;
-	const existing = editable.campaign;
-	const links = resolveLinks(db, viewer, input);
-	if (!links.ok) return links;
-	if (links.model.teamId !== existing.teamId)
-		return refuse('invalid', 'The model must belong to the campaign’s team.', 'modelId');
-	db.update(campaign)
-		.set({ ...split(input), updatedAt: new Date() })
-		.where(eq(campaign.id, id))
-		.run();
-	return { ok: true };
+	input: CampaignInput,
+	base: BaseVersion
+): Outcome<{ version: number }> | StaleRefusal {
+	return writeTransaction(db, (tx) => {
+		const editable = editableCampaign(tx, viewer, id);
+		if (!editable.ok) return editable;
+		const existing = editable.campaign;
+		const links = resolveLinks(tx, viewer, input);
+		if (!links.ok) return links;
+		if (links.model.teamId !== existing.teamId)
+			return refuse('invalid', 'The model must belong to the campaign’s team.', 'modelId');
+		const claimed = claimVersion(tx, 'campaign', existing, campaignInput(existing), base);
+		if (!claimed.ok) return claimed;
+		tx.update(campaign)
+			.set({ ...split(input), version: claimed.next, updatedBy: viewer.id, updatedAt: new Date() })
+			.where(eq(campaign.id, id))
+			.run();
+		return { ok: true, version: claimed.next };
+	});
 }
 
 export function deleteCampaign(db: Db, viewer: SessionUser, id: string): Outcome {
-	const existing = db.select().from(campaign).where(eq(campaign.id, id)).get();
-	if (!existing || !canReadCampaign(viewer, existing))
-		return refuse('not-found', 'No such campaign.');
-	if (!canEditCampaign(viewer, existing))
-		return refuse('forbidden', 'Only the owner can delete a draft.');
-	db.delete(campaign).where(eq(campaign.id, id)).run();
-	return { ok: true };
+	return writeTransaction(db, (tx) => {
+		const existing = tx.select().from(campaign).where(eq(campaign.id, id)).get();
+		if (!existing || !canReadCampaign(viewer, existing))
+			return refuse('not-found', 'No such campaign.');
+		if (!canEditCampaign(viewer, existing))
+			return refuse('forbidden', 'Only the owner can delete a draft.');
+		tx.delete(campaign).where(eq(campaign.id, id)).run();
+		forgetHistory(tx, 'campaign', id);
+		return { ok: true };
+	});
 }
 
 /** The editable form values of a stored campaign. */
@@ -190,6 +213,7 @@ export function campaignResource(c: CampaignDetail) {
 		facilityName: c.facility.name,
 		lastRevision: c.lastRevision,
 		approvedRevisionId: c.approvedRevisionId,
+		version: c.version,
 		createdAt: c.createdAt,
 		updatedAt: c.updatedAt
 	};

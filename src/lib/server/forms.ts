@@ -25,12 +25,12 @@ type FormSchema = z.ZodObject;
  * the server more time than reading them.
  */
 export async function validatePosted<S extends FormSchema>(
-	posted: Request | FormData,
+	posted: Request | FormData | null,
 	schema: S,
 	options: { id?: string } = {}
 ) {
 	const adapter = zod4(schema);
-	const form = await superValidate(posted, adapter, options).catch(() => null);
+	const form = posted && (await superValidate(posted, adapter, options).catch(() => null));
 	if (form?.valid) return form;
 	const issues = form ? (schema.safeParse(form.data).error?.issues ?? []) : [];
 	if (form && !issues.some((issue) => isMisshapen(issue, form.data))) {

@@ -1,17 +1,18 @@
 import { and, asc, desc, eq, inArray } from 'drizzle-orm';
 import type { SessionUser } from '../roles';
-import { ATTACHMENT_MAX_BYTES, type ScaleModelInput } from '../schemas/model';
+import { ATTACHMENT_MAX_BYTES, scaleModelSchema, type ScaleModelInput } from '../schemas/model';
 import { canReadModel, canWriteModel, readableModelTeams } from './access';
-import type { Db } from './db/open';
+import { writeTransaction, type Db, type DbOrTx } from './db/open';
 import { modelAttachment, scaleModel, team } from './db/schema';
 import { refuse, type Outcome } from './outcome';
 import { sniffAttachmentType } from './sniff';
 import type { BlobStore } from './storage';
+import { claimVersion, editableValues, type BaseVersion, type StaleRefusal } from './versions';
 
 export type ScaleModel = typeof scaleModel.$inferSelect & { teamName: string };
 export type ModelAttachment = typeof modelAttachment.$inferSelect;
 
-const withTeam = (db: Db) =>
+const withTeam = (db: DbOrTx) =>
 	db
 		.select({ model: scaleModel, teamName: team.name })
 		.from(scaleModel)
@@ -42,12 +43,12 @@ export function listModelsFor(db: Db, viewer: SessionUser): ScaleModel[] {
 }
 
 /** The model if the viewer may see it; otherwise undefined, so callers answer 404 alike. */
-export function getModelFor(db: Db, viewer: SessionUser, id: string): ScaleModel | undefined {
+export function getModelFor(db: DbOrTx, viewer: SessionUser, id: string): ScaleModel | undefined {
 	const row = withTeam(db).where(eq(scaleModel.id, id)).get();
 	return row && canReadModel(viewer, row.model) ? flatten(row) : undefined;
 }
 
-function nameTaken(db: Db, teamId: string, name: string, exceptId?: string) {
+function nameTaken(db: DbOrTx, teamId: string, name: string, exceptId?: string) {
 	const other = db
 		.select({ id: scaleModel.id })
 		.from(scaleModel)
@@ -64,20 +65,22 @@ export function createModel(
 	if (!canWriteModel(viewer, { teamId: input.teamId })) {
 		return refuse('forbidden', 'You can add models only to your own team.', 'teamId');
 	}
-	if (nameTaken(db, input.teamId, input.name)) {
-		return refuse('conflict', 'Your team already has a model of this name.', 'name');
-	}
-	const { id } = db
-		.insert(scaleModel)
-		.values({ ...input, createdBy: viewer.id })
-		.returning({ id: scaleModel.id })
-		.get();
-	return { ok: true, id };
+	return writeTransaction(db, (tx) => {
+		if (nameTaken(tx, input.teamId, input.name)) {
+			return refuse('conflict', 'Your team already has a model of this name.', 'name');
+		}
+		const { id } = tx
+			.insert(scaleModel)
+			.values({ ...input, createdBy: viewer.id, updatedBy: viewer.id })
+			.returning({ id: scaleModel.id })
+			.get();
+		return { ok: true, id };
+	});
 }
 
 /** The model if the viewer may change it; not found alike for none and not theirs. */
 export function writableModel(
-	db: Db,
+	db: DbOrTx,
 	viewer: SessionUser,
 	id: string
 ): Outcome<{ model: ScaleModel }> {
@@ -86,23 +89,33 @@ export function writableModel(
 	return { ok: true, model };
 }
 
+/** Writes the model if `base` is still its stored version (see `updateCampaign`). */
 export function updateModel(
 	db: Db,
 	viewer: SessionUser,
 	id: string,
-	input: ScaleModelInput
-): Outcome {
-	const writable = writableModel(db, viewer, id);
-	if (!writable.ok) return writable;
-	const existing = writable.model;
-	if (input.teamId !== existing.teamId && !canWriteModel(viewer, { teamId: input.teamId })) {
-		return refuse('forbidden', 'You can move a model only to your own team.', 'teamId');
-	}
-	if (nameTaken(db, input.teamId, input.name, id)) {
-		return refuse('conflict', 'Your team already has a model of this name.', 'name');
-	}
-	db.update(scaleModel).set(input).where(eq(scaleModel.id, id)).run();
-	return { ok: true };
+	input: ScaleModelInput,
+	base: BaseVersion
+): Outcome<{ version: number }> | StaleRefusal {
+	return writeTransaction(db, (tx) => {
+		const writable = writableModel(tx, viewer, id);
+		if (!writable.ok) return writable;
+		const existing = writable.model;
+		if (input.teamId !== existing.teamId && !canWriteModel(viewer, { teamId: input.teamId })) {
+			return refuse('forbidden', 'You can move a model only to your own team.', 'teamId');
+		}
+		if (nameTaken(tx, input.teamId, input.name, id)) {
+			return refuse('conflict', 'Your team already has a model of this name.', 'name');
+		}
+		const values = editableValues(scaleModelSchema, existing);
+		const claimed = claimVersion(tx, 'scale-model', existing, values, base);
+		if (!claimed.ok) return claimed;
+		tx.update(scaleModel)
+			.set({ ...input, version: claimed.next, updatedBy: viewer.id, updatedAt: new Date() })
+			.where(eq(scaleModel.id, id))
+			.run();
+		return { ok: true, version: claimed.next };
+	});
 }
 
 export function listAttachments(db: Db, modelId: string): ModelAttachment[] {

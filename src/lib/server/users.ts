@@ -5,7 +5,7 @@ import type { Role, SessionUser, TeamRef } from '../roles';
 export type { SessionUser, TeamRef };
 import type { Invitation } from '../schemas/user';
 import { hashPassword } from './auth/password';
-import type { Db, DbOrTx } from './db/open';
+import { writeTransaction, type Db, type DbOrTx } from './db/open';
 import { invitation, team, teamMember, user, userRole } from './db/schema';
 import { refuse, type Outcome } from './outcome';
 
@@ -126,7 +126,7 @@ export function inviteUser(
 	if (knownTeams.length !== new Set(input.teamIds).size) {
 		return refuse('invalid', 'One of the chosen teams does not exist.', 'teamIds');
 	}
-	return db.transaction((tx) => {
+	return writeTransaction(db, (tx) => {
 		const created = tx
 			.insert(user)
 			.values({ email: input.email, name: input.name })
@@ -151,7 +151,7 @@ export function reissueInvitation(
 ): Outcome<{ token: string }> {
 	const target = db.select({ id: user.id }).from(user).where(eq(user.id, userId)).get();
 	if (!target) return refuse('not-found', 'No such account.');
-	return db.transaction((tx) => ({
+	return writeTransaction(db, (tx) => ({
 		ok: true as const,
 		token: issueInvitation(tx, userId, by, now)
 	}));
@@ -187,7 +187,7 @@ export async function acceptInvitation(
 	const found = liveInvitation(db, token, now);
 	if (!found) return refuse('not-found', 'This link has expired or was already used.');
 	const passwordHash = await hashPassword(password);
-	return db.transaction((tx) => {
+	return writeTransaction(db, (tx) => {
 		// Re-check inside the transaction: two tabs submitting the same link must not both win.
 		const claimed = tx
 			.update(invitation)
@@ -209,7 +209,7 @@ export function assignRoles(db: Db, userId: string, roles: Role[], actorId: stri
 	}
 	const target = db.select({ id: user.id }).from(user).where(eq(user.id, userId)).get();
 	if (!target) return refuse('not-found', 'No such account.');
-	db.transaction((tx) => {
+	writeTransaction(db, (tx) => {
 		tx.delete(userRole).where(eq(userRole.userId, userId)).run();
 		tx.insert(userRole)
 			.values(distinct(roles).map((role) => ({ userId, role })))

@@ -1,5 +1,5 @@
 import { eq, inArray } from 'drizzle-orm';
-import type { Db } from '../db/open';
+import { writeTransaction, type Db } from '../db/open';
 import { signInThrottle } from '../db/schema';
 
 /**
@@ -43,7 +43,7 @@ export function retryAfterSeconds(db: Db, keys: ThrottleKeys, now = Date.now()):
 }
 
 export function recordFailedSignIn(db: Db, keys: ThrottleKeys, now = Date.now()): void {
-	db.transaction((tx) => {
+	writeTransaction(db, (tx) => {
 		for (const [key, free] of [
 			[keys.pair, THROTTLE.freeFailuresPerPair],
 			[keys.address, THROTTLE.freeFailuresPerAddress]

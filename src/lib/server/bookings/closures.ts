@@ -2,7 +2,7 @@ import { and, asc, eq, gt, lt } from 'drizzle-orm';
 import type { SessionUser } from '../../roles';
 import type { ClosureInput } from '../../schemas/booking';
 import { canBook } from '../access';
-import type { Db } from '../db/open';
+import { writeTransaction, type Db } from '../db/open';
 import { closure } from '../db/schema';
 import { getFacility } from '../facilities';
 import { refuse, type Outcome } from '../outcome';
@@ -25,26 +25,23 @@ export function createClosure(
 	input: ClosureInput
 ): Outcome<{ id: string }> {
 	if (!canBook(viewer)) return refuse('forbidden', 'Only operators and admins enter closures.');
-	return db.transaction(
-		(tx) => {
-			if (!getFacility(tx, facilityId)) return refuse('not-found', 'No such facility.');
-			const clash = collidingBooking(tx, facilityId, {
-				start: input.start.getTime(),
-				end: input.end.getTime()
-			});
-			if (clash)
-				return refuse(
-					'conflict',
-					`Booking ${clash.id} (${when(clash.start)} to ${when(clash.end)}) lies in that time; move or cancel it first.`,
-					'start'
-				);
-			const { id } = tx
-				.insert(closure)
-				.values({ ...input, facilityId, createdBy: viewer.id })
-				.returning({ id: closure.id })
-				.get();
-			return { ok: true as const, id };
-		},
-		{ behavior: 'immediate' }
-	);
+	return writeTransaction(db, (tx) => {
+		if (!getFacility(tx, facilityId)) return refuse('not-found', 'No such facility.');
+		const clash = collidingBooking(tx, facilityId, {
+			start: input.start.getTime(),
+			end: input.end.getTime()
+		});
+		if (clash)
+			return refuse(
+				'conflict',
+				`Booking ${clash.id} (${when(clash.start)} to ${when(clash.end)}) lies in that time; move or cancel it first.`,
+				'start'
+			);
+		const { id } = tx
+			.insert(closure)
+			.values({ ...input, facilityId, createdBy: viewer.id })
+			.returning({ id: closure.id })
+			.get();
+		return { ok: true as const, id };
+	});
 }

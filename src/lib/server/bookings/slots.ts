@@ -8,7 +8,7 @@ import {
 import type { SessionUser } from '../../roles';
 import type { BookingChange, BookingInput } from '../../schemas/booking';
 import { canBook, canReadCampaign } from '../access';
-import type { Db } from '../db/open';
+import { writeTransaction, type Db } from '../db/open';
 import { booking, campaign } from '../db/schema';
 import { getFacility } from '../facilities';
 import { refuse, type Outcome } from '../outcome';
@@ -43,49 +43,46 @@ export function createBooking(
 	now = Date.now()
 ): Outcome<{ id: string }> {
 	if (!canBook(viewer)) return refuse('forbidden', 'Only operators and admins book tunnel time.');
-	return db.transaction(
-		(tx) => {
-			const f = getFacility(tx, facilityId);
-			if (!f) return refuse('not-found', 'No such facility.');
-			const c = tx.select().from(campaign).where(eq(campaign.id, input.campaignId)).get();
-			// A campaign the booker may not see answers as one that does not exist.
-			if (!c || !canReadCampaign(viewer, c))
-				return refuse('invalid', 'No such campaign.', 'campaignId');
-			if (!c.approvedRevisionId)
-				return refuse(
-					'conflict',
-					'Only a campaign with an approved revision can be booked.',
-					'campaignId'
-				);
-			if (c.facilityId !== facilityId)
-				return refuse('invalid', `That campaign is planned for another facility.`, 'campaignId');
-			const slot = { start: input.start.getTime(), end: input.end.getTime() };
-			const problem = slotProblem(tx, f, slot, now);
-			if (problem) return problem;
-			const { id } = tx
-				.insert(booking)
-				.values({
-					facilityId,
-					campaignId: c.id,
-					revisionId: c.approvedRevisionId,
-					start: input.start,
-					end: input.end,
-					note: input.note,
-					createdBy: viewer.id
-				})
-				.returning({ id: booking.id })
-				.get();
-			notifyBooking(
-				tx,
-				c,
-				`Booked: ${c.name}, ${when(input.start)}`,
-				`${f.name} is booked for “${c.name}” from ${when(input.start)} to ${when(input.end)}.`,
-				origin
+	return writeTransaction(db, (tx) => {
+		const f = getFacility(tx, facilityId);
+		if (!f) return refuse('not-found', 'No such facility.');
+		const c = tx.select().from(campaign).where(eq(campaign.id, input.campaignId)).get();
+		// A campaign the booker may not see answers as one that does not exist.
+		if (!c || !canReadCampaign(viewer, c))
+			return refuse('invalid', 'No such campaign.', 'campaignId');
+		if (!c.approvedRevisionId)
+			return refuse(
+				'conflict',
+				'Only a campaign with an approved revision can be booked.',
+				'campaignId'
 			);
-			return { ok: true as const, id };
-		},
-		{ behavior: 'immediate' }
-	);
+		if (c.facilityId !== facilityId)
+			return refuse('invalid', `That campaign is planned for another facility.`, 'campaignId');
+		const slot = { start: input.start.getTime(), end: input.end.getTime() };
+		const problem = slotProblem(tx, f, slot, now);
+		if (problem) return problem;
+		const { id } = tx
+			.insert(booking)
+			.values({
+				facilityId,
+				campaignId: c.id,
+				revisionId: c.approvedRevisionId,
+				start: input.start,
+				end: input.end,
+				note: input.note,
+				createdBy: viewer.id
+			})
+			.returning({ id: booking.id })
+			.get();
+		notifyBooking(
+			tx,
+			c,
+			`Booked: ${c.name}, ${when(input.start)}`,
+			`${f.name} is booked for “${c.name}” from ${when(input.start)} to ${when(input.end)}.`,
+			origin
+		);
+		return { ok: true as const, id };
+	});
 }
 
 /** The workflow steps a change asks for: a new state, a move, or both. */
@@ -106,56 +103,53 @@ export function changeBooking(
 	now = Date.now()
 ): Outcome {
 	if (!canBook(viewer)) return refuse('forbidden', 'Only operators and admins change bookings.');
-	return db.transaction(
-		(tx) => {
-			const b = tx.select().from(booking).where(eq(booking.id, bookingId)).get();
-			if (!b) return refuse('not-found', 'No such booking.');
-			const f = getFacility(tx, b.facilityId)!;
-			const c = tx.select().from(campaign).where(eq(campaign.id, b.campaignId)).get()!;
-			const steps = stepsOf(b, change);
-			const refused = steps
-				.map((action): BookingStep => bookingTransition(b.state, action, viewer))
-				.find((step) => !step.ok);
-			if (refused) return refused;
-			const moved = steps.includes('move');
-			const slot = {
-				start: (change.start ?? b.start).getTime(),
-				end: (change.end ?? b.end).getTime()
-			};
-			if (moved) {
-				const problem = slotProblem(tx, f, slot, now, b.id);
-				if (problem) return problem;
-			}
-			tx.update(booking)
-				.set({
-					start: new Date(slot.start),
-					end: new Date(slot.end),
-					state: change.state ?? b.state,
-					note: change.note ?? b.note,
-					updatedAt: new Date(now)
-				})
-				.where(eq(booking.id, b.id))
-				.run();
-			if (moved)
-				notifyBooking(
-					tx,
-					c,
-					`Moved: ${c.name}, now ${when(new Date(slot.start))}`,
-					`The ${f.name} slot for “${c.name}” moved to ${when(new Date(slot.start))} – ${when(new Date(slot.end))}.`,
-					origin
-				);
-			if (change.state === 'cancelled')
-				notifyBooking(
-					tx,
-					c,
-					`Cancelled: ${c.name}, ${when(b.start)}`,
-					`The ${f.name} slot for “${c.name}” on ${when(b.start)} is cancelled.`,
-					origin
-				);
-			return { ok: true as const };
-		},
-		{ behavior: 'immediate' }
-	);
+	return writeTransaction(db, (tx) => {
+		const b = tx.select().from(booking).where(eq(booking.id, bookingId)).get();
+		if (!b) return refuse('not-found', 'No such booking.');
+		const f = getFacility(tx, b.facilityId)!;
+		const c = tx.select().from(campaign).where(eq(campaign.id, b.campaignId)).get()!;
+		const steps = stepsOf(b, change);
+		const refused = steps
+			.map((action): BookingStep => bookingTransition(b.state, action, viewer))
+			.find((step) => !step.ok);
+		if (refused) return refused;
+		const moved = steps.includes('move');
+		const slot = {
+			start: (change.start ?? b.start).getTime(),
+			end: (change.end ?? b.end).getTime()
+		};
+		if (moved) {
+			const problem = slotProblem(tx, f, slot, now, b.id);
+			if (problem) return problem;
+		}
+		tx.update(booking)
+			.set({
+				start: new Date(slot.start),
+				end: new Date(slot.end),
+				state: change.state ?? b.state,
+				note: change.note ?? b.note,
+				updatedAt: new Date(now)
+			})
+			.where(eq(booking.id, b.id))
+			.run();
+		if (moved)
+			notifyBooking(
+				tx,
+				c,
+				`Moved: ${c.name}, now ${when(new Date(slot.start))}`,
+				`The ${f.name} slot for “${c.name}” moved to ${when(new Date(slot.start))} – ${when(new Date(slot.end))}.`,
+				origin
+			);
+		if (change.state === 'cancelled')
+			notifyBooking(
+				tx,
+				c,
+				`Cancelled: ${c.name}, ${when(b.start)}`,
+				`The ${f.name} slot for “${c.name}” on ${when(b.start)} is cancelled.`,
+				origin
+			);
+		return { ok: true as const };
+	});
 }
 
 /** A campaign's slots, for its own page. */

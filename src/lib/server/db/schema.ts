@@ -9,6 +9,7 @@ import {
 	uniqueIndex
 } from 'drizzle-orm/sqlite-core';
 import { ROLES, TEAM_KINDS } from '../../roles';
+import { VERSIONED_KINDS } from '../../versions';
 import { MODEL_KINDS, SECTION_KINDS } from '../../calc/kinds';
 import { DEFAULT_TUNNEL_SHAPE_FACTOR } from '../../calc/blockage';
 import type { CampaignDefinition } from '../../schemas/campaign';
@@ -27,6 +28,19 @@ const createdAt = () =>
 	integer('created_at', { mode: 'timestamp_ms' })
 		.notNull()
 		.default(sql`(unixepoch('subsec') * 1000)`);
+/**
+ * Optimistic concurrency for records people edit: every write names the version it read and
+ * bumps it by one, so two writers who read the same version cannot both win.
+ */
+const versioned = () => ({
+	version: integer('version').notNull().default(1),
+	updatedBy: text('updated_by').references(() => user.id, { onDelete: 'set null' }),
+	// Set by the app as well: the column added to older tables carries a constant default.
+	updatedAt: integer('updated_at', { mode: 'timestamp_ms' })
+		.notNull()
+		.default(sql`(unixepoch('subsec') * 1000)`)
+		.$defaultFn(() => new Date())
+});
 
 /** People who sign in; Auth.js keeps no table of its own, as sessions are signed tokens. */
 export const user = sqliteTable('user', {
@@ -155,7 +169,8 @@ export const facility = sqliteTable('facility', {
 	minimumSlot_s: real('minimum_slot_s').notNull().default(SLOT_DEFAULTS.minimumSlot_s),
 	/** Grid of the facility's clock that proposed slots start and end on, in seconds. */
 	slotStep_s: real('slot_step_s').notNull().default(SLOT_DEFAULTS.slotStep_s),
-	createdAt: createdAt()
+	createdAt: createdAt(),
+	...versioned()
 });
 
 export const scaleModel = sqliteTable(
@@ -178,7 +193,8 @@ export const scaleModel = sqliteTable(
 		dragCoefficient: real('drag_coefficient'),
 		modelVolume_m3: real('model_volume_m3'),
 		createdBy: text('created_by').references(() => user.id, { onDelete: 'set null' }),
-		createdAt: createdAt()
+		createdAt: createdAt(),
+		...versioned()
 	},
 	(t) => [uniqueIndex('scale_model_team_name').on(t.teamId, t.name)]
 );
@@ -230,11 +246,27 @@ export const campaign = sqliteTable(
 		objective: text('objective').notNull(),
 		definition: text('definition', { mode: 'json' }).$type<CampaignDefinition>().notNull(),
 		createdAt: createdAt(),
-		updatedAt: integer('updated_at', { mode: 'timestamp_ms' })
-			.notNull()
-			.default(sql`(unixepoch('subsec') * 1000)`)
+		...versioned()
 	},
 	(t) => [index('campaign_team').on(t.teamId), index('campaign_facility').on(t.facilityId)]
+);
+
+/**
+ * The values of an edited record as they were before each write replaced them: who made that
+ * version and when. It lets a writer whose version went stale see what changed since they read.
+ */
+export const editHistory = sqliteTable(
+	'edit_history',
+	{
+		id: id(),
+		kind: text('kind', { enum: VERSIONED_KINDS }).notNull(),
+		recordId: text('record_id').notNull(),
+		version: integer('version').notNull(),
+		values: text('values', { mode: 'json' }).$type<Record<string, unknown>>().notNull(),
+		madeBy: text('made_by').references(() => user.id, { onDelete: 'set null' }),
+		madeAt: integer('made_at', { mode: 'timestamp_ms' }).notNull()
+	},
+	(t) => [uniqueIndex('edit_history_record_version').on(t.kind, t.recordId, t.version)]
 );
 
 /**

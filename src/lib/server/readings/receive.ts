@@ -1,7 +1,7 @@
 import type { ReadingProblem, ReceivePhase, UploadSummary } from '../../readings/types';
 import type { SessionUser } from '../../roles';
 import { canUploadReadings } from '../access';
-import type { Db } from '../db/open';
+import { writeTransaction, type Db } from '../db/open';
 import { refuse, type Refusal } from '../outcome';
 import type { BlobStore } from '../storage';
 import { checkReadings } from './check';
@@ -85,19 +85,17 @@ export async function receiveReadings(
 	progress('store', 0, checked.readings.length);
 	const kept = await keepOriginal(store, file.bytes);
 	try {
-		const outcome = db.transaction(
-			(tx) =>
-				storeReadings(
-					tx,
-					db.$client,
-					viewer,
-					c,
-					approved.revisionId,
-					{ ...file, ...kept },
-					checked,
-					replace
-				),
-			{ behavior: 'immediate' }
+		const outcome = writeTransaction(db, (tx) =>
+			storeReadings(
+				tx,
+				db.$client,
+				viewer,
+				c,
+				approved.revisionId,
+				{ ...file, ...kept },
+				checked,
+				replace
+			)
 		);
 		if (!outcome.ok) await discardOriginal(store, kept);
 		else progress('store', checked.readings.length, checked.readings.length);

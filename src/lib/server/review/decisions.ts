@@ -4,7 +4,7 @@ import type { SessionUser } from '../../roles';
 import type { DecisionInput } from '../../schemas/review';
 import { verdictRefusal } from '../../workflow';
 import { campaignActor } from '../access';
-import type { Db } from '../db/open';
+import { writeTransaction, type Db } from '../db/open';
 import { campaign, campaignRevision, reviewDecision, reviewNote, user } from '../db/schema';
 import { enqueueMail } from '../mail/outbox';
 import { refuse, type Outcome } from '../outcome';
@@ -40,7 +40,7 @@ export function decideRevision(
 	origin: string
 ): Outcome {
 	try {
-		return db.transaction((tx) => {
+		return writeTransaction(db, (tx) => {
 			const step = checkedStep(tx, viewer, campaignId, input.verdict);
 			if (!step.ok) return step.refusal;
 			const c = step.campaign;

@@ -3,7 +3,7 @@ import { CalcInputError } from '../../calc';
 import { campaignFigures } from '../../campaign/figures';
 import type { RevisionSnapshot } from '../../review/types';
 import type { SessionUser } from '../../roles';
-import type { Db, DbOrTx } from '../db/open';
+import { writeTransaction, type Db, type DbOrTx } from '../db/open';
 import { campaign, campaignRevision, facility, scaleModel, user, userRole } from '../db/schema';
 import { enqueueMail } from '../mail/outbox';
 import { refuse, type Outcome } from '../outcome';
@@ -49,7 +49,7 @@ export function submitCampaign(
 	campaignId: string,
 	origin: string
 ): Outcome<{ revision: number }> {
-	return db.transaction((tx) => {
+	return writeTransaction(db, (tx) => {
 		const step = checkedStep(tx, viewer, campaignId, 'submit');
 		if (!step.ok) return step.refusal;
 		const c = step.campaign;
@@ -90,7 +90,7 @@ export function moveCampaign(
 	campaignId: string,
 	action: 'withdraw' | 'revise'
 ): Outcome {
-	return db.transaction((tx) => {
+	return writeTransaction(db, (tx) => {
 		const step = checkedStep(tx, viewer, campaignId, action);
 		if (!step.ok) return step.refusal;
 		tx.update(campaign)

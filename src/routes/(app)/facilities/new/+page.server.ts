@@ -14,10 +14,10 @@ export const load: PageServerLoad = async ({ locals }) => {
 
 export const actions: Actions = {
 	default: async ({ locals, request }) => {
-		requirePermission(locals, 'edit-facilities');
+		const user = requirePermission(locals, 'edit-facilities');
 		const form = await validatePosted(request, facilitySchema);
 		if (!form.valid) return fail(400, { form });
-		const created = createFacility(locals.db, form.data);
+		const created = createFacility(locals.db, user, form.data);
 		if (!created.ok) return setError(form, 'name', created.message, { status: 409 });
 		redirect(303, `/facilities/${created.id}`);
 	}

@@ -11,9 +11,9 @@ export const GET: RequestHandler = ({ locals }) => {
 };
 
 export const POST: RequestHandler = async (event) => {
-	requireRole(event.locals, 'operator', 'admin');
+	const user = requireRole(event.locals, 'operator', 'admin');
 	const body = await readJson(event, facilitySchema);
 	if (!body.ok) return body.response;
-	const created = createFacility(event.locals.db, body.data);
+	const created = createFacility(event.locals.db, user, body.data);
 	return created.ok ? json({ id: created.id }, { status: 201 }) : refusalResponse(created);
 };

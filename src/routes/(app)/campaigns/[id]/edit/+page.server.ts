@@ -11,6 +11,7 @@ import {
 	updateCampaign
 } from '$lib/server/campaigns';
 import { listFacilities } from '$lib/server/facilities';
+import { withBaseVersion } from '$lib/server/form-versions';
 import { requireRole } from '$lib/server/guards';
 import { returnNotes } from '$lib/server/review';
 import { listModelsFor } from '$lib/server/models';
@@ -28,6 +29,7 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 		models: listModelsFor(locals.db, user).filter((m) => m.teamId === found.teamId),
 		facilities: listFacilities(locals.db),
 		review: returnNotes(locals.db, user, found.id),
+		version: found.version,
 		form: await superValidate(campaignInput(found), zod4(campaignSchema))
 	};
 };
@@ -39,7 +41,10 @@ export const actions: Actions = {
 		if (!editable.ok) error(STATUS_OF_REFUSAL[editable.code], { message: editable.message });
 		return saveCampaignForm(
 			event,
-			(input) => updateCampaign(event.locals.db, user, event.params.id, input),
+			(input, base) =>
+				withBaseVersion(base, (version) =>
+					updateCampaign(event.locals.db, user, event.params.id, input, version)
+				),
 			() => `/campaigns/${event.params.id}`
 		);
 	}

@@ -1,12 +1,12 @@
 import { error, redirect } from '@sveltejs/kit';
-import { setError, superValidate, fail } from 'sveltekit-superforms';
+import { superValidate, fail } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { facilitySchema } from '$lib/schemas/facility';
 import { getFacility, updateFacility } from '$lib/server/facilities';
 import { requireRole } from '$lib/server/guards';
-import { STATUS_OF_REFUSAL } from '$lib/server/outcome';
 import type { Actions, PageServerLoad } from './$types';
-import { validatePosted } from '$lib/server/forms';
+import { postedBaseVersion, refusedForm, withBaseVersion } from '$lib/server/form-versions';
+import { postedForm, validatePosted } from '$lib/server/forms';
 
 export const load: PageServerLoad = async ({ locals, params }) => {
 	requireRole(locals, 'operator', 'admin');
@@ -16,19 +16,22 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 	return {
 		name: found.name,
 		id: found.id,
+		version: found.version,
 		form: await superValidate(values, zod4(facilitySchema))
 	};
 };
 
 export const actions: Actions = {
 	default: async ({ locals, params, request }) => {
-		requireRole(locals, 'operator', 'admin');
+		const user = requireRole(locals, 'operator', 'admin');
 		if (!getFacility(locals.db, params.id)) error(404, { message: 'No such facility.' });
-		const form = await validatePosted(request, facilitySchema);
+		const posted = await postedForm(request);
+		const form = await validatePosted(posted, facilitySchema);
 		if (!form.valid) return fail(400, { form });
-		const saved = updateFacility(locals.db, params.id, form.data);
-		if (!saved.ok)
-			return setError(form, 'name', saved.message, { status: STATUS_OF_REFUSAL[saved.code] });
+		const saved = withBaseVersion(postedBaseVersion(posted), (base) =>
+			updateFacility(locals.db, user, params.id, form.data, base)
+		);
+		if (!saved.ok) return refusedForm(form, saved, saved.field ?? '');
 		redirect(303, `/facilities/${params.id}`);
 	}
 };

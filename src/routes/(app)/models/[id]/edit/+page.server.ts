@@ -1,12 +1,12 @@
 import { error, redirect } from '@sveltejs/kit';
-import { setError, superValidate, fail } from 'sveltekit-superforms';
+import { superValidate, fail } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { scaleModelSchema } from '$lib/schemas/model';
 import { requireRole } from '$lib/server/guards';
 import { getModelFor, updateModel, writableModel } from '$lib/server/models';
-import { STATUS_OF_REFUSAL } from '$lib/server/outcome';
 import type { Actions, PageServerLoad } from './$types';
-import { validatePosted } from '$lib/server/forms';
+import { postedBaseVersion, refusedForm, withBaseVersion } from '$lib/server/form-versions';
+import { postedForm, validatePosted } from '$lib/server/forms';
 
 export const load: PageServerLoad = async ({ locals, params }) => {
 	const user = requireRole(locals, 'aerodynamicist');
@@ -15,6 +15,7 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 	return {
 		name: model.name,
 		teams: user.teams,
+		version: model.version,
 		form: await superValidate(model, zod4(scaleModelSchema))
 	};
 };
@@ -24,14 +25,15 @@ export const actions: Actions = {
 		const user = requireRole(locals, 'aerodynamicist');
 		const writable = writableModel(locals.db, user, params.id);
 		if (!writable.ok) error(404, { message: writable.message });
-		const form = await validatePosted(request, scaleModelSchema);
+		const posted = await postedForm(request);
+		const form = await validatePosted(posted, scaleModelSchema);
 		if (!form.valid) return fail(400, { form });
-		const saved = updateModel(locals.db, user, params.id, form.data);
+		const saved = withBaseVersion(postedBaseVersion(posted), (base) =>
+			updateModel(locals.db, user, params.id, form.data, base)
+		);
 		if (!saved.ok) {
 			if (saved.code === 'not-found') error(404, { message: saved.message });
-			return setError(form, saved.field === 'teamId' ? 'teamId' : 'name', saved.message, {
-				status: STATUS_OF_REFUSAL[saved.code]
-			});
+			return refusedForm(form, saved, saved.field === 'teamId' ? 'teamId' : 'name');
 		}
 		redirect(303, `/models/${params.id}`);
 	}

@@ -1,4 +1,4 @@
-import { error, json } from '@sveltejs/kit';
+import { error } from '@sveltejs/kit';
 import { campaignSchema } from '$lib/schemas/campaign';
 import { readJson, refusalResponse } from '$lib/server/api';
 import {
@@ -9,6 +9,7 @@ import {
 	updateCampaign
 } from '$lib/server/campaigns';
 import { requireRole, requireUser } from '$lib/server/guards';
+import { expectedVersion, versionedJson } from '$lib/server/preconditions';
 import type { RequestHandler } from './$types';
 
 /**
@@ -19,17 +20,21 @@ export const GET: RequestHandler = ({ locals, params }) => {
 	const user = requireUser(locals);
 	const found = getCampaignFor(locals.db, user, params.id);
 	if (!found) error(404, { message: 'No such campaign.' });
-	return json(campaignResource(found));
+	return versionedJson(campaignResource(found), found.version);
 };
 
 export const PUT: RequestHandler = async (event) => {
 	const user = requireRole(event.locals, 'aerodynamicist');
 	const editable = editableCampaign(event.locals.db, user, event.params.id);
 	if (!editable.ok) return refusalResponse(editable);
+	const expected = expectedVersion(event.request);
+	if (!expected.ok) return expected.response;
 	const body = await readJson(event, campaignSchema);
 	if (!body.ok) return body.response;
-	const saved = updateCampaign(event.locals.db, user, event.params.id, body.data);
-	return saved.ok ? json({ id: event.params.id }) : refusalResponse(saved);
+	const saved = updateCampaign(event.locals.db, user, event.params.id, body.data, expected.base);
+	return saved.ok
+		? versionedJson({ id: event.params.id, version: saved.version }, saved.version)
+		: refusalResponse(saved);
 };
 
 export const DELETE: RequestHandler = ({ locals, params }) => {

@@ -1,0 +1,15 @@
+/** Records people edit, each carrying a version that every write must name (see server/versions). */
+export const VERSIONED_KINDS = ['campaign', 'scale-model', 'facility'] as const;
+export type VersionedKind = (typeof VERSIONED_KINDS)[number];
+
+/** One field that differs between the version a writer read and the stored one. */
+export type FieldChange = { field: string; label: string; before: string; after: string };
+
+/** What a writer whose version went stale is told: who changed what since they read it. */
+export type StaleDetail = {
+	/** The stored version now; naming it in a new write keeps the writer's values deliberately. */
+	version: number;
+	changedBy: string[];
+	changedAt: string;
+	changes: FieldChange[];
+};
