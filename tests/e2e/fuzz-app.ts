@@ -102,7 +102,20 @@ export function send(
 const REDIRECTS = [301, 303, 307, 308];
 /** Refusals the API documents (README, Calculation API), besides its successes. */
 const API_STATUSES = new Set([
-	200, 201, 204, ...REDIRECTS, 400, 401, 403, 404, 409, 412, 413, 415, 428, 429
+	200,
+	201,
+	204,
+	...REDIRECTS,
+	400,
+	401,
+	403,
+	404,
+	409,
+	412,
+	413,
+	415,
+	428,
+	429
 ]);
 /**
  * What a form action may answer: success, redirect, or a refusal of the request. Sign-out is
