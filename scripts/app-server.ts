@@ -34,7 +34,9 @@ export async function startSeededApp({
 	const env = {
 		...process.env,
 		DATABASE_URL: databasePath,
-		ATTACHMENTS_DIR: join(dir, 'attachments')
+		// Always the local fake, in the app's own folder, even where the shell names a bucket.
+		S3_URL: '',
+		OBJECT_STORE_DIR: join(dir, 'object-store')
 	};
 	execFileSync(process.execPath, ['--import', 'tsx', 'scripts/seed.ts'], {
 		env,
