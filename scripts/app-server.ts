@@ -36,7 +36,7 @@ export async function startSeededApp({
 		DATABASE_URL: databasePath,
 		// Always the local fake, in the app's own folder, even where the shell names a bucket.
 		S3_URL: '',
-		OBJECT_STORE_DIR: join(dir, 'object-store')
+		LOCAL_S3_DIR: join(dir, 'object-store')
 	};
 	execFileSync(process.execPath, ['--import', 'tsx', 'scripts/seed.ts'], {
 		env,

@@ -46,7 +46,7 @@ const heapBefore = process.memoryUsage().heapUsed;
 for (let i = 0; i < REPEATS; i++) {
 	const { db, dir } = freshDb();
 	const w = approvedWorld(db);
-	const files = await openObjectStore({ OBJECT_STORE_DIR: join(dir, 'objects') }, () => {});
+	const files = await openObjectStore({ LOCAL_S3_DIR: join(dir, 'objects') }, () => {});
 	global.gc?.();
 	const rss0 = process.memoryUsage().rss;
 	let rssPeak = rss0;

@@ -64,7 +64,7 @@ for (let point = 1; point <= READINGS; point++)
 	lines.push(
 		`${point},static,${(-2 + Math.sin(point / 37)).toFixed(3)},mmH2O,612.4,Pa,19.5,1002.1,hPa,0.51`
 	);
-const files = await openObjectStore({ OBJECT_STORE_DIR: join(dir, 'objects') }, () => {});
+const files = await openObjectStore({ LOCAL_S3_DIR: join(dir, 'objects') }, () => {});
 const stored = await receiveReadings(db, files.store, w.aero, w.campaignId, {
 	fileName: 'bench.csv',
 	mediaType: 'text/csv',

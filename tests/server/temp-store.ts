@@ -12,7 +12,7 @@ let opened: OpenedStore | undefined;
 // One local S3 fake per test file, in a temporary folder, closed and removed after the file.
 beforeAll(async () => {
 	dir = mkdtempSync(join(tmpdir(), 'tunnelwright-objects-'));
-	opened = await openObjectStore({ OBJECT_STORE_DIR: dir }, () => {});
+	opened = await openObjectStore({ LOCAL_S3_DIR: dir }, () => {});
 });
 
 afterAll(async () => {

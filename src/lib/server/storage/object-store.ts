@@ -40,6 +40,20 @@ function checkedKey(key: string): string {
 	return key;
 }
 
+/**
+ * Signs a PUT with the SHA-256 already computed for the database. The request signer would
+ * otherwise hash the whole body a second time, and S3 refuses a body that does not match the
+ * signed hash, so the file is checked on its way in as well.
+ */
+const signedWithSha256 =
+	(sha256: string) =>
+	<Args extends { request: unknown }, Output>(next: (args: Args) => Promise<Output>) =>
+	(args: Args) => {
+		const { headers } = args.request as { headers?: Record<string, string> };
+		if (headers) headers['x-amz-content-sha256'] = sha256;
+		return next(args);
+	};
+
 const missing = (error: unknown) => error instanceof NoSuchKey || error instanceof NotFound;
 
 export function s3ObjectStore(client: S3Client, bucket: string): ObjectStore {
@@ -47,10 +61,15 @@ export function s3ObjectStore(client: S3Client, bucket: string): ObjectStore {
 	return {
 		async put(body, storageKey = randomBytes(16).toString('hex')) {
 			if (body instanceof Uint8Array) {
-				await client.send(
-					new PutObjectCommand({ ...at(storageKey), Body: body, ContentLength: body.byteLength })
-				);
-				return { storageKey, size_bytes: body.byteLength, sha256: sha256Of(body) };
+				const sha256 = sha256Of(body);
+				const command = new PutObjectCommand({
+					...at(storageKey),
+					Body: body,
+					ContentLength: body.byteLength
+				});
+				command.middlewareStack.add(signedWithSha256(sha256), { step: 'build' });
+				await client.send(command);
+				return { storageKey, size_bytes: body.byteLength, sha256 };
 			}
 			// A stream's length is known only at its end: lib-storage sends it in parts as it comes.
 			const counted = hashing();

@@ -8,8 +8,8 @@ export type OpenedStore = { store: ObjectStore; close(): Promise<void> };
 type Env = Record<string, string | undefined>;
 
 /** Where the local fake keeps its objects when `S3_URL` is unset. */
-export function objectStoreDirFromEnv(env: Env): string {
-	return env.OBJECT_STORE_DIR?.trim() || 'data/object-store';
+export function localS3DirFromEnv(env: Env): string {
+	return env.LOCAL_S3_DIR?.trim() || 'data/object-store';
 }
 
 /** Where files were kept on disk before they moved to the object store. */
@@ -19,7 +19,7 @@ export function attachmentsDirFromEnv(env: Env): string {
 
 /**
  * Opens the bucket `S3_URL` names or, without one, starts the local fake over
- * `OBJECT_STORE_DIR`. Either way the bucket is reached once here, so a wrong endpoint, key or
+ * `LOCAL_S3_DIR`. Either way the bucket is reached once here, so a wrong endpoint, key or
  * bucket stops the start instead of the first upload.
  */
 export async function openObjectStore(
@@ -27,7 +27,7 @@ export async function openObjectStore(
 	log: (line: string) => void = console.log
 ): Promise<OpenedStore> {
 	const url = env.S3_URL?.trim();
-	const fake = url ? undefined : await startFakeS3(objectStoreDirFromEnv(env));
+	const fake = url ? undefined : await startFakeS3(localS3DirFromEnv(env));
 	const settings = fake?.settings ?? s3SettingsFromUrl(url!);
 	const client = s3Client(settings);
 	try {
@@ -41,7 +41,7 @@ export async function openObjectStore(
 	}
 	if (fake)
 		log(
-			`Files: S3_URL is not set; files are kept by a local S3 store on ${settings.endpoint} in ${objectStoreDirFromEnv(env)}.`
+			`Files: S3_URL is not set; files are kept by a local S3 store on ${settings.endpoint} in ${localS3DirFromEnv(env)}.`
 		);
 	return {
 		store: s3ObjectStore(client, settings.bucket),
