@@ -72,6 +72,7 @@ export function s3ObjectStore(client: S3Client, bucket: string): ObjectStore {
 				return { storageKey, size_bytes: body.byteLength, sha256 };
 			}
 			// A stream's length is known only at its end: lib-storage sends it in parts as it comes.
+			// A failing source fails the upload, so pipeline's own callback has nothing to add.
 			const counted = hashing();
 			const upload = new Upload({
 				client,
@@ -84,6 +85,7 @@ export function s3ObjectStore(client: S3Client, bucket: string): ObjectStore {
 			try {
 				const { Body } = await client.send(new GetObjectCommand(at(file.storageKey)));
 				if (!(Body instanceof Readable)) throw new Error('The object store sent no stream.');
+				// Any failure, the checksum's included, reaches the reader as the stream's error.
 				return pipeline(Body, verifying(file, file.storageKey), () => {});
 			} catch (error) {
 				if (missing(error)) return undefined;
