@@ -45,7 +45,9 @@ export async function startSeededApp({
 	const env = {
 		...process.env,
 		DATABASE_URL: databasePath,
-		ATTACHMENTS_DIR: join(dir, 'attachments')
+		// Always the local fake, in the app's own folder, even where the shell names a bucket.
+		S3_URL: '',
+		LOCAL_S3_DIR: join(dir, 'object-store')
 	};
 	execFileSync(process.execPath, ['--import', 'tsx', 'scripts/seed.ts'], {
 		env,

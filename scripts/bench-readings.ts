@@ -10,7 +10,7 @@ import { rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { campaign, reading } from '../src/lib/server/db/schema';
 import { approvedLayout, receiveReadings, type ReceivePhase } from '../src/lib/server/readings';
-import { diskBlobStore } from '../src/lib/server/storage';
+import { openObjectStore } from '../src/lib/server/storage/open';
 import { approvedWorld, freshDb } from './bench-world';
 
 const READINGS = 100_000;
@@ -46,7 +46,7 @@ const heapBefore = process.memoryUsage().heapUsed;
 for (let i = 0; i < REPEATS; i++) {
 	const { db, dir } = freshDb();
 	const w = approvedWorld(db);
-	const store = diskBlobStore(join(dir, 'blobs'));
+	const files = await openObjectStore({ LOCAL_S3_DIR: join(dir, 'objects') }, () => {});
 	global.gc?.();
 	const rss0 = process.memoryUsage().rss;
 	let rssPeak = rss0;
@@ -55,7 +55,7 @@ for (let i = 0; i < REPEATS; i++) {
 	const t0 = performance.now();
 	const outcome = await receiveReadings(
 		db,
-		store,
+		files.store,
 		w.aero,
 		w.campaignId,
 		{ fileName: 'bench.csv', mediaType: 'text/csv', bytes, channel: 'api' },
@@ -98,6 +98,7 @@ for (let i = 0; i < REPEATS; i++) {
 	phases.floor.push(performance.now() - f0);
 	if (floorDb.select().from(reading).all().length !== READINGS) throw new Error('Floor lost rows.');
 
+	await files.close();
 	db.$client.close();
 	floorDb.$client.close();
 	rmSync(dir, { recursive: true, force: true });

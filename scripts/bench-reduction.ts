@@ -11,7 +11,7 @@ import { join } from 'node:path';
 import { receiveReadings } from '../src/lib/server/readings';
 import { reductionInput } from '../src/lib/server/results';
 import { reduceCampaign, type ReadingColumns } from '../src/lib/results/reduce';
-import { diskBlobStore } from '../src/lib/server/storage';
+import { openObjectStore } from '../src/lib/server/storage/open';
 import { startSeededApp } from './app-server';
 import { approvedWorld, freshDb } from './bench-world';
 import { launchChromium, signInAsDemo } from './chromium';
@@ -64,12 +64,14 @@ for (let point = 1; point <= READINGS; point++)
 	lines.push(
 		`${point},static,${(-2 + Math.sin(point / 37)).toFixed(3)},mmH2O,612.4,Pa,19.5,1002.1,hPa,0.51`
 	);
-const stored = await receiveReadings(db, diskBlobStore(join(dir, 'blobs')), w.aero, w.campaignId, {
+const files = await openObjectStore({ LOCAL_S3_DIR: join(dir, 'objects') }, () => {});
+const stored = await receiveReadings(db, files.store, w.aero, w.campaignId, {
 	fileName: 'bench.csv',
 	mediaType: 'text/csv',
 	bytes: new TextEncoder().encode(lines.join('\n')),
 	channel: 'api'
 });
+await files.close();
 if (!stored.ok) throw new Error(stored.message);
 
 const read_ms: number[] = [];

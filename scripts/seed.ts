@@ -11,7 +11,7 @@ import {
 } from '../src/lib/server/bookings';
 import { approvedLayout, receiveReadings } from '../src/lib/server/readings';
 import { decideRevision, submitCampaign } from '../src/lib/server/review';
-import { attachmentsDirFromEnv, diskBlobStore } from '../src/lib/server/storage';
+import { openObjectStore } from '../src/lib/server/storage/open';
 import { demoReadingsCsv } from './demo-readings';
 import { sessionUser } from '../src/lib/server/users';
 import {
@@ -210,9 +210,10 @@ const surveyed = db.select().from(campaign).where(eq(campaign.name, DEMO_READING
 if (!db.select().from(readingsUpload).where(eq(readingsUpload.campaignId, surveyed.id)).get()) {
 	const approved = approvedLayout(db, surveyed.approvedRevisionId!);
 	if (!approved.ok) throw new Error(`Demo readings: ${approved.message}`);
+	const files = await openObjectStore(process.env);
 	const received = await receiveReadings(
 		db,
-		diskBlobStore(attachmentsDirFromEnv(process.env)),
+		files.store,
 		person(DEMO_READINGS.sender),
 		surveyed.id,
 		{
@@ -221,7 +222,7 @@ if (!db.select().from(readingsUpload).where(eq(readingsUpload.campaignId, survey
 			bytes: new TextEncoder().encode(demoReadingsCsv(approved.plan, approved.layout)),
 			channel: 'api'
 		}
-	);
+	).finally(() => files.close());
 	if (!received.ok) throw new Error(`Demo readings: ${received.message}`);
 }
 

@@ -1,4 +1,5 @@
 import type { Db } from '$lib/server/db';
+import type { ObjectStore } from '$lib/server/storage';
 import type { SessionUser } from '$lib/roles';
 import type { ApiTokenScope } from '$lib/schemas/api-token';
 
@@ -11,6 +12,8 @@ declare global {
 		}
 		interface Locals {
 			db: Db;
+			/** Model attachments and original readings files. */
+			files: ObjectStore;
 			user: SessionUser | null;
 			/** The personal API token this request was signed in with; null for a session. */
 			apiToken: { id: string; scopes: ApiTokenScope[] } | null;

@@ -15,15 +15,20 @@ import { retryAfterSeconds, throttleKeys } from '$lib/server/auth/throttle';
 import { getDb } from '$lib/server/db';
 import { busyResponse, isDatabaseBusy } from '$lib/server/db/busy';
 import { startMail } from '$lib/server/mail';
+import { fileStore, startFileStore } from '$lib/server/storage';
 import { sessionUser } from '$lib/server/users';
 
-/** Open and migrate the database and start mail delivery before the first request is served. */
+/**
+ * Open and migrate the database, start mail delivery and open the file store before the first
+ * request is served.
+ */
 export const init: ServerInit = async () => {
-	await startMail(getDb());
+	await Promise.all([startMail(getDb()), startFileStore()]);
 };
 
 const attachDatabase: Handle = ({ event, resolve }) => {
 	event.locals.db = getDb();
+	event.locals.files = fileStore();
 	event.locals.user = null;
 	event.locals.apiToken = null;
 	return resolve(event);

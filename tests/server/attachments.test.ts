@@ -1,20 +1,9 @@
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { afterEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { ATTACHMENT_MAX_BYTES } from '../../src/lib/schemas/model';
 import { addAttachment, getAttachmentFor, listAttachments } from '../../src/lib/server/models';
-import { diskBlobStore } from '../../src/lib/server/storage';
 import { campaignWorld } from './campaign-fixtures';
 import { tempDb } from './temp-db';
-
-const folders: string[] = [];
-afterEach(() => folders.splice(0).forEach((f) => rmSync(f, { recursive: true, force: true })));
-function store() {
-	const folder = mkdtempSync(join(tmpdir(), 'tunnelwright-blobs-'));
-	folders.push(folder);
-	return diskBlobStore(folder);
-}
+import { readStored, tempStore as store } from './temp-store';
 
 // Signatures from the formats' own specifications: PDF "%PDF-" (ISO 32000-1 §7.5.2),
 // PNG's eight-byte signature (RFC 2083 §3.1), JPEG's SOI marker FF D8 FF (ITU-T T.81).
@@ -46,7 +35,8 @@ describe('model attachments', () => {
 		expect(added.ok).toBe(true);
 		const [stored] = listAttachments(db, w.modelA);
 		expect(stored).toMatchObject({ fileName: name, mediaType: type, size_bytes: bytes.byteLength });
-		expect(await blobs.get(stored!.storageKey)).toEqual(bytes);
+		expect(stored!.sha256).toMatch(/^[0-9a-f]{64}$/);
+		expect(await readStored(stored!)).toEqual(bytes);
 		expect(stored!.storageKey).not.toContain(name);
 	});
 

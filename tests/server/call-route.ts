@@ -8,7 +8,7 @@ export type Handler = (event: never) => unknown;
 
 export type RouteCall = Pick<
 	EventInit,
-	'method' | 'raw' | 'headers' | 'params' | 'apiToken' | 'routeId'
+	'method' | 'raw' | 'headers' | 'params' | 'apiToken' | 'routeId' | 'files'
 > & {
 	/** A value sent as JSON. */
 	body?: unknown;

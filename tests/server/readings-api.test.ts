@@ -4,6 +4,7 @@ import * as readings from '../../src/routes/api/v1/campaigns/[id]/readings/+serv
 import { callRoute as call } from './call-route';
 import { approvedCampaignWorld } from './campaign-fixtures';
 import { tempDb } from './temp-db';
+import { tempStore } from './temp-store';
 
 const ORIGIN = 'http://localhost';
 const CSV =
@@ -16,7 +17,7 @@ function world() {
 	const w = approvedCampaignWorld(db, ORIGIN);
 	const params = { id: w.campaignId };
 	const post = (user: SessionUser, body: BodyInit, headers: Record<string, string>, search = '') =>
-		call(readings.POST, db, user, { raw: body, headers, params, search });
+		call(readings.POST, db, user, { raw: body, headers, params, search, files: tempStore() });
 	return { db, w, params, post };
 }
 

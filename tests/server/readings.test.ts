@@ -1,6 +1,3 @@
-import { mkdtempSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import { sql } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
 import type { SessionUser } from '../../src/lib/roles';
@@ -12,9 +9,9 @@ import {
 	receiveReadings,
 	type ReadingsFile
 } from '../../src/lib/server/readings';
-import { diskBlobStore } from '../../src/lib/server/storage';
 import { approvedCampaignWorld } from './campaign-fixtures';
 import { tempDb } from './temp-db';
+import { tempStore } from './temp-store';
 
 const ORIGIN = 'http://localhost';
 const HEADER =
@@ -24,7 +21,7 @@ const HEADER =
 function world() {
 	const db = tempDb();
 	const w = approvedCampaignWorld(db, ORIGIN);
-	const store = diskBlobStore(mkdtempSync(join(tmpdir(), 'tunnelwright-blobs-')));
+	const store = tempStore();
 	const send = (
 		text: string | Uint8Array,
 		options: { replace?: boolean; as?: SessionUser; mediaType?: ReadingsFile['mediaType'] } = {}

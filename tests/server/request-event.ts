@@ -1,9 +1,12 @@
 import type { Cookies, RequestEvent } from '@sveltejs/kit';
 import type { SessionUser } from '../../src/lib/roles';
 import type { Db } from '../../src/lib/server/db/open';
+import type { ObjectStore } from '../../src/lib/server/storage/object-store';
 
 export type EventInit = {
 	db?: Db;
+	/** The file store; routes that keep or serve files need one. */
+	files?: ObjectStore;
 	user?: SessionUser | null;
 	apiToken?: App.Locals['apiToken'];
 	method?: string;
@@ -62,6 +65,7 @@ export function requestEvent(init: EventInit = {}): RequestEvent {
 	// Auth.js's own functions in locals are left out: the user is given as hooks would resolve it.
 	const locals = {
 		db: init.db,
+		files: init.files,
 		user: init.user ?? null,
 		apiToken: init.apiToken ?? null
 	} as App.Locals;

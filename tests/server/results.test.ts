@@ -1,16 +1,13 @@
-import { mkdtempSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import psychrolib from 'psychrolib';
 import { describe, expect, it } from 'vitest';
 import { receiveReadings } from '../../src/lib/server/readings';
 import { campaignResults } from '../../src/lib/server/results';
 import { resultsCsv } from '../../src/lib/server/results-export';
-import { diskBlobStore } from '../../src/lib/server/storage';
 import * as resultsRoute from '../../src/routes/api/v1/campaigns/[id]/results/+server';
 import { callRoute } from './call-route';
 import { approvedCampaign, campaignWorld } from './campaign-fixtures';
 import { tempDb } from './temp-db';
+import { tempStore } from './temp-store';
 
 const ORIGIN = 'http://localhost';
 const Q = 57.89;
@@ -38,7 +35,7 @@ function world() {
 		},
 		ORIGIN
 	);
-	const store = diskBlobStore(mkdtempSync(join(tmpdir(), 'tunnelwright-blobs-')));
+	const store = tempStore();
 	const send = async (lines: string[]) => {
 		const outcome = await receiveReadings(db, store, w.aeroA, campaignId, {
 			fileName: 'r.csv',

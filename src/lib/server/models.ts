@@ -6,7 +6,7 @@ import { writeTransaction, type Db, type DbOrTx } from './db/open';
 import { modelAttachment, scaleModel, team } from './db/schema';
 import { refuse, type Outcome } from './outcome';
 import { sniffAttachmentType } from './sniff';
-import type { BlobStore } from './storage';
+import type { ObjectStore } from './storage/object-store';
 import { claimVersion, editableValues, type BaseVersion, type StaleRefusal } from './versions';
 
 export type ScaleModel = typeof scaleModel.$inferSelect & { teamName: string };
@@ -130,7 +130,7 @@ export function listAttachments(db: Db, modelId: string): ModelAttachment[] {
 /** Stores an upload after checking its size and sniffing its type from the bytes. */
 export async function addAttachment(
 	db: Db,
-	store: BlobStore,
+	store: ObjectStore,
 	viewer: SessionUser,
 	modelId: string,
 	file: { name: string; bytes: Uint8Array }
@@ -147,7 +147,7 @@ export async function addAttachment(
 	}
 	const mediaType = await sniffAttachmentType(file.bytes);
 	if (!mediaType) return refuse('invalid', 'Attach a PDF, PNG, JPEG or SVG file.', 'file');
-	const storageKey = await store.put(file.bytes);
+	const { storageKey, sha256 } = await store.put(file.bytes);
 	try {
 		const { id } = db
 			.insert(modelAttachment)
@@ -157,6 +157,7 @@ export async function addAttachment(
 				mediaType,
 				size_bytes: file.bytes.byteLength,
 				storageKey,
+				sha256,
 				uploadedBy: viewer.id
 			})
 			.returning({ id: modelAttachment.id })

@@ -211,6 +211,8 @@ export const modelAttachment = sqliteTable(
 		mediaType: text('media_type').notNull(),
 		size_bytes: integer('size_bytes').notNull(),
 		storageKey: text('storage_key').notNull().unique(),
+		/** Null only for files kept before checksums were; `npm run storage:migrate` fills it. */
+		sha256: text('sha256'),
 		uploadedBy: text('uploaded_by').references(() => user.id, { onDelete: 'set null' }),
 		createdAt: createdAt()
 	},

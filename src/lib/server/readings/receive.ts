@@ -3,7 +3,7 @@ import type { SessionUser } from '../../roles';
 import { canUploadReadings } from '../access';
 import { writeTransaction, type Db } from '../db/open';
 import { refuse, type Refusal } from '../outcome';
-import type { BlobStore } from '../storage';
+import type { ObjectStore } from '../storage/object-store';
 import { checkReadings } from './check';
 import { readCsv, readJsonReadings } from './file';
 import { approvedLayoutOf, readableCampaign } from './layout';
@@ -38,7 +38,7 @@ export type ReceiveOutcome = ({ ok: true } & UploadSummary) | ReadingsRefusal;
  */
 export async function receiveReadings(
 	db: Db,
-	store: BlobStore,
+	store: ObjectStore,
 	viewer: SessionUser,
 	campaignId: string,
 	file: ReadingsFile,

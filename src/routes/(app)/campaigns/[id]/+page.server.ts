@@ -13,7 +13,6 @@ import {
 	submitCampaign
 } from '$lib/server/review';
 import { READINGS_MAX_BYTES } from '$lib/schemas/readings';
-import { attachmentStore } from '$lib/server/attachments';
 import { readingsOverview, receiveReadings } from '$lib/server/readings';
 import { availableActions } from '$lib/workflow';
 import type { Actions, PageServerLoad } from './$types';
@@ -72,7 +71,7 @@ export const actions: Actions = {
 			});
 		const received = await receiveReadings(
 			locals.db,
-			attachmentStore(),
+			locals.files,
 			user,
 			params.id,
 			{

@@ -1,5 +1,4 @@
 import { error, fail } from '@sveltejs/kit';
-import { attachmentStore } from '$lib/server/attachments';
 import { requireRole } from '$lib/server/guards';
 import { canWriteModel } from '$lib/server/access';
 import { addAttachment, getModelFor, listAttachments, writableModel } from '$lib/server/models';
@@ -25,7 +24,7 @@ export const actions: Actions = {
 		const file = (await postedForm(request))?.get('file');
 		if (!(file instanceof File) || file.size === 0)
 			return fail(400, { attachError: 'Choose a file to attach.' });
-		const added = await addAttachment(locals.db, attachmentStore(), user, params.id, {
+		const added = await addAttachment(locals.db, locals.files, user, params.id, {
 			name: file.name,
 			bytes: new Uint8Array(await file.arrayBuffer())
 		});

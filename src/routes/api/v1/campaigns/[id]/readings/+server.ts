@@ -2,7 +2,6 @@ import { error, json } from '@sveltejs/kit';
 import { z } from 'zod';
 import { READINGS_MAX_BYTES } from '$lib/schemas/readings';
 import { apiError, fieldMessages, readBody, refusalResponse, tooLarge } from '$lib/server/api';
-import { attachmentStore } from '$lib/server/attachments';
 import { canUploadReadings } from '$lib/server/access';
 import { getCampaignFor } from '$lib/server/campaigns';
 import { requireUser } from '$lib/server/guards';
@@ -67,7 +66,7 @@ export const POST: RequestHandler = async ({ locals, params, request, url }) => 
 	};
 	const replace = ['true', '1'].includes(url.searchParams.get('replace') ?? '');
 	const run = async (progress?: ReceiveProgress): Promise<ApiAnswer> => {
-		const outcome = await receiveReadings(locals.db, attachmentStore(), user, params.id, file, {
+		const outcome = await receiveReadings(locals.db, locals.files, user, params.id, file, {
 			replace,
 			progress
 		});

@@ -1,0 +1,1 @@
+ALTER TABLE `model_attachment` ADD `sha256` text;
