@@ -90,3 +90,26 @@ describe('the migration that drops the unused Auth.js adapter tables', () => {
 		).toEqual([]);
 	});
 });
+
+describe('the migration that gives edited records a version', () => {
+	it('starts every existing record at version 1, last changed when it was made', () => {
+		const { db, next } = databaseBefore('edit_versions');
+		db.exec(`
+			insert into user (id, email) values ('u', 'u@example.org');
+			insert into team (id, name, kind) values ('t', 'T', 'client');
+			insert into scale_model (id, team_id, name, kind, scale_denominator, full_scale_length_m,
+				full_scale_width_m, full_scale_height_m, full_scale_frontal_area_m2, reference_length_m,
+				created_at)
+				values ('m', 't', 'M', 'road-vehicle', 4, 4, 2, 1.5, 2.2, 4, 1700000000000);
+		`);
+		next();
+		expect(db.prepare('select version, updated_by, updated_at from scale_model').get()).toEqual({
+			version: 1,
+			updated_by: null,
+			updated_at: 1700000000000
+		});
+		// A user who is removed leaves the records they changed, unattributed.
+		db.exec(`update scale_model set updated_by = 'u'; pragma foreign_keys = on; delete from user;`);
+		expect(db.prepare('select updated_by from scale_model').get()).toEqual({ updated_by: null });
+	});
+});
