@@ -155,7 +155,7 @@ const sendSignedOutToSignIn: Handle = ({ event, resolve }) => {
 	return resolve(event);
 };
 
-export const handle = sequence(
+const productHandles = sequence(
 	attachDatabase,
 	shapeApiErrors,
 	rejectOversizedBodies,
@@ -167,6 +167,10 @@ export const handle = sequence(
 	requireOwnOriginForCookieWrites,
 	sendSignedOutToSignIn
 );
+
+/** The readiness probe gets the database and nothing else: no session, token or body work. */
+export const handle: Handle = (input) =>
+	input.event.url.pathname === '/healthz' ? attachDatabase(input) : productHandles(input);
 
 export const handleError: HandleServerError = ({ error, status, message }) => {
 	if (status >= 500) console.error(error);
