@@ -115,7 +115,8 @@ describe('sessions', () => {
 	});
 
 	it('answers the readiness check without a session, and ignores a bad one', async () => {
-		for (const headers of [{}, { cookie: 'authjs.session-token=not-a-token' }]) {
+		const sent: Record<string, string>[] = [{}, { cookie: 'authjs.session-token=not-a-token' }];
+		for (const headers of sent) {
 			const answer = await fetch(url('/healthz'), { headers });
 			expect(answer.status).toBe(200);
 			expect(await answer.json()).toEqual({ status: 'ok' });

@@ -16,7 +16,7 @@ import { decodeSessionToken, encodeSessionToken } from '../../src/lib/server/aut
 import { endSessions, setActive } from '../../src/lib/server/users';
 import { addUser, tempDb } from './temp-db';
 
-type Written = { name: string; value: string; options: Record<string, unknown> };
+type Written = { name: string; value: string; options: Parameters<Cookies['set']>[2] };
 
 /** A request's cookies: the ones sent, and what the response would set or delete. */
 function cookiesSending(sent: Record<string, string>) {

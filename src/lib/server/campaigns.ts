@@ -2,8 +2,15 @@ import { desc, eq } from 'drizzle-orm';
 import { settingFindings } from '../calc';
 import type { SessionUser } from '../roles';
 import type { CampaignDefinition, CampaignInput } from '../schemas/campaign';
-import { can, canEditCampaign, canReadCampaign, readableCampaigns } from './access';
+import {
+	campaignReadScope,
+	can,
+	canEditCampaign,
+	canReadCampaign,
+	readableCampaigns
+} from './access';
 import type { Db } from './db/open';
+import { preparedPerDatabase } from './db/prepared';
 import { campaign, facility, scaleModel, team, user } from './db/schema';
 import { getFacility, type Facility } from './facilities';
 import { getModelFor, type ScaleModel } from './models';
@@ -26,8 +33,8 @@ export type CampaignDetail = Campaign & {
 	ownerName: string;
 };
 
-export function listCampaignsFor(db: Db, viewer: SessionUser): CampaignListing[] {
-	return db
+const campaignListing = preparedPerDatabase((db) =>
+	db
 		.select({
 			id: campaign.id,
 			name: campaign.name,
@@ -47,9 +54,14 @@ export function listCampaignsFor(db: Db, viewer: SessionUser): CampaignListing[]
 		.innerJoin(facility, eq(facility.id, campaign.facilityId))
 		.innerJoin(team, eq(team.id, campaign.teamId))
 		.innerJoin(user, eq(user.id, campaign.ownerId))
-		.where(readableCampaigns(viewer))
+		.where(readableCampaigns)
 		.orderBy(desc(campaign.updatedAt))
-		.all()
+		.prepare()
+);
+
+export function listCampaignsFor(db: Db, viewer: SessionUser): CampaignListing[] {
+	return campaignListing(db)
+		.all(campaignReadScope(viewer))
 		.map((c) => ({ ...c, ownerName: c.ownerName ?? '' }));
 }
 

@@ -1,17 +1,12 @@
-import type { Database, Statement } from 'better-sqlite3';
 import type { Db } from './db/open';
+import { preparedPerDatabase } from './db/prepared';
 
-const probes = new WeakMap<Database, Statement>();
+const probe = preparedPerDatabase((db) => db.$client.prepare('SELECT 1').pluck());
 
 /** Whether the database answers a query: what a deployment's readiness check asks. */
 export function databaseReachable(db: Db): boolean {
 	try {
-		let probe = probes.get(db.$client);
-		if (!probe) {
-			probe = db.$client.prepare('SELECT 1').pluck();
-			probes.set(db.$client, probe);
-		}
-		return probe.get() === 1;
+		return probe(db).get() === 1;
 	} catch {
 		return false;
 	}

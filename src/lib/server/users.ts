@@ -6,6 +6,7 @@ export type { SessionUser, TeamRef };
 import type { Invitation } from '../schemas/user';
 import { hashPassword } from './auth/password';
 import type { Db, DbOrTx } from './db/open';
+import { preparedPerDatabase } from './db/prepared';
 import { invitation, team, teamMember, user, userRole } from './db/schema';
 import { refuse, type Outcome } from './outcome';
 
@@ -30,7 +31,8 @@ function rolesAndTeams(db: Db, userIds: string[]) {
 	};
 }
 
-function prepareSessionQueries(db: Db) {
+// Every request with a session runs these.
+const sessionQueries = preparedPerDatabase((db) => {
 	const userId = sql.placeholder('userId');
 	return {
 		account: db
@@ -57,10 +59,7 @@ function prepareSessionQueries(db: Db) {
 			.orderBy(asc(team.name))
 			.prepare()
 	};
-}
-
-// Every request with a session runs these, so they are built and prepared once per database.
-const sessionQueries = new WeakMap<Db, ReturnType<typeof prepareSessionQueries>>();
+});
 
 /**
  * The signed-in user as of this request, or null when the account is gone, deactivated, or its
@@ -68,8 +67,7 @@ const sessionQueries = new WeakMap<Db, ReturnType<typeof prepareSessionQueries>>
  * or a deactivation takes effect at once.
  */
 export function sessionUser(db: Db, userId: string, sessionVersion: number): SessionUser | null {
-	let queries = sessionQueries.get(db);
-	if (!queries) sessionQueries.set(db, (queries = prepareSessionQueries(db)));
+	const queries = sessionQueries(db);
 	const row = queries.account.get({ userId });
 	if (!row || !row.active || row.sessionVersion !== sessionVersion) return null;
 	return {
