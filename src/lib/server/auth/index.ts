@@ -21,7 +21,7 @@ class SignInRefused extends CredentialsSignin {
  * themselves on every other request (`session-cookie.ts`), through the same token codec and
  * cookie name, so both agree on the format and on when the cookie is Secure.
  */
-export const {
+const {
 	handle: authJsHandle,
 	signIn,
 	signOut
@@ -72,6 +72,11 @@ export const {
 	};
 });
 
-/** Auth.js's own endpoints (sign-in callback, sign-out, CSRF); other requests skip it. */
+export { signIn, signOut };
+
+/**
+ * Auth.js's own endpoints (sign-in callback, sign-out, CSRF). Other requests skip it, so they
+ * have no `locals.auth`: the hooks resolve `locals.user` from the cookie instead.
+ */
 export const authHandle: Handle = (input) =>
 	input.event.url.pathname.startsWith('/auth/') ? authJsHandle(input) : input.resolve(input.event);
