@@ -9,14 +9,14 @@ import { sequence } from '@sveltejs/kit/hooks';
 import { apiError, tooLarge, tooLargeMessage } from '$lib/server/api';
 import { bodyLimitOf } from '$lib/server/body-limits';
 import { authHandle } from '$lib/server/auth';
-import { withinAbsoluteLifetime } from '$lib/server/auth/session-lifetime';
+import { authSecret } from '$lib/server/auth/secret';
+import { sessionUserOf } from '$lib/server/auth/session-cookie';
 import { authenticateBearer } from '$lib/server/auth/bearer';
 import { retryAfterSeconds, throttleKeys } from '$lib/server/auth/throttle';
 import { getDb } from '$lib/server/db';
 import { busyResponse, isDatabaseBusy } from '$lib/server/db/busy';
 import { startMail } from '$lib/server/mail';
 import { fileStore, startFileStore } from '$lib/server/storage';
-import { sessionUser } from '$lib/server/users';
 
 /**
  * Open and migrate the database, start mail delivery and open the file store before the first
@@ -154,16 +154,12 @@ const requireOwnOriginForCookieWrites: Handle = ({ event, resolve }) => {
 const resolveUser: Handle = async ({ event, resolve }) => {
 	// A request signed with a token acts as its owner only, whatever cookie comes along.
 	if (event.locals.apiToken) return resolve(event);
-	const session = await event.locals.auth();
-	if (session?.user?.id) {
-		// The session callback in $lib/server/auth copies the token's session version here.
-		const { sessionVersion, signedInAt } = session as typeof session & {
-			sessionVersion?: number;
-			signedInAt?: number;
-		};
-		if (withinAbsoluteLifetime(signedInAt))
-			event.locals.user = sessionUser(event.locals.db, session.user.id, sessionVersion ?? 0);
-	}
+	event.locals.user = await sessionUserOf({
+		cookies: event.cookies,
+		url: event.url,
+		db: event.locals.db,
+		secret: authSecret()
+	});
 	return resolve(event);
 };
 
@@ -176,7 +172,7 @@ const sendSignedOutToSignIn: Handle = ({ event, resolve }) => {
 	return resolve(event);
 };
 
-export const handle = sequence(
+const productHandles = sequence(
 	attachDatabase,
 	answerBusyDatabase,
 	shapeApiErrors,
@@ -189,6 +185,10 @@ export const handle = sequence(
 	requireOwnOriginForCookieWrites,
 	sendSignedOutToSignIn
 );
+
+/** The readiness probe gets the database and nothing else: no session, token or body work. */
+export const handle: Handle = (input) =>
+	input.event.url.pathname === '/healthz' ? attachDatabase(input) : productHandles(input);
 
 export const handleError: HandleServerError = ({ error, event, status, message }) => {
 	if (isDatabaseBusy(error)) event.locals.databaseBusy = true;

@@ -94,6 +94,8 @@ export const ACCESS_TABLE: readonly AccessLine[] = [
 	{ route: '/(auth)/invitation/[token]', call: 'action:default', path: '/invitation/{invitation}', allow: ANYONE },
 	{ route: '/signout', call: 'load', path: '/signout', allow: ANYONE },
 	{ route: '/(app)/welcome', call: 'load', path: '/welcome', allow: SIGNED_IN },
+	// The readiness probe ignores whatever credential comes along.
+	{ route: '/healthz', call: 'GET', path: '/healthz', allow: CALLERS },
 
 	// Account, calendar feed, administration
 	{ route: '/(app)/account', call: 'load', path: '/account', allow: SIGNED_IN },

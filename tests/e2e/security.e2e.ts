@@ -104,6 +104,25 @@ describe('sessions', () => {
 		// The same cookie, replayed as a thief would after the owner signed out.
 		expect((await me()).status).toBe(401);
 	});
+
+	it('leaves a fresh session cookie as it is instead of re-issuing it with every answer', async () => {
+		const cookie = await sessionCookie('reviewer@demo.test');
+		for (const path of ['/api/v1/me', '/campaigns']) {
+			const answer = await fetch(url(path), { headers: { cookie } });
+			expect(answer.status, path).toBe(200);
+			expect(answer.headers.getSetCookie(), path).toEqual([]);
+		}
+	});
+
+	it('answers the readiness check without a session, and ignores a bad one', async () => {
+		const sent: Record<string, string>[] = [{}, { cookie: 'authjs.session-token=not-a-token' }];
+		for (const headers of sent) {
+			const answer = await fetch(url('/healthz'), { headers });
+			expect(answer.status).toBe(200);
+			expect(await answer.json()).toEqual({ status: 'ok' });
+			expect(answer.headers.getSetCookie()).toEqual([]);
+		}
+	});
 });
 
 describe('cookie-signed API writes', () => {

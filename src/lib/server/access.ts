@@ -1,9 +1,9 @@
-import { gt, inArray, or, sql, type SQL } from 'drizzle-orm';
+import { sql, type SQL } from 'drizzle-orm';
 import { BOOKING_ROLES } from '../booking/workflow';
 import type { Role, SessionUser } from '../roles';
 import type { ApiTokenScope } from '../schemas/api-token';
 import { verdictRefusal, type CampaignState } from '../workflow';
-import { campaign } from './db/schema';
+import { campaign, scaleModel } from './db/schema';
 
 /**
  * Who may see and change what: every role and ownership rule of the product, tested as one
@@ -51,10 +51,26 @@ export function canWriteModel(viewer: SessionUser, model: { teamId: string }): b
 	return can(viewer, 'keep-models') && inTeam(viewer, model.teamId);
 }
 
-/** canReadModel for listings: the teams whose models the viewer sees, or every team. */
-export function readableModelTeams(viewer: SessionUser): 'all' | string[] {
-	if (isAdmin(viewer)) return 'all';
-	return viewer.roles.includes('aerodynamicist') ? viewer.teams.map((t) => t.id) : [];
+const readScope = (everything: boolean, teamIds: string[], submitted = false) => ({
+	readsAll: everything ? 1 : 0,
+	readsTeams: JSON.stringify(teamIds),
+	readsSubmitted: submitted ? 1 : 0
+});
+/** The viewer's facts that `readableModels` and `readableCampaigns` are bound to. */
+export type ReadScope = ReturnType<typeof readScope>;
+
+const teamIdsIn = (teamIds: ReturnType<typeof sql.placeholder>) =>
+	sql`(SELECT value FROM json_each(${teamIds}))`;
+
+/**
+ * canReadModel as a query condition for listings, bound to `modelReadScope(viewer)`: the
+ * condition has one shape for every viewer, so the listing is prepared once.
+ */
+export const readableModels: SQL = sql`(${sql.placeholder('readsAll')} = 1 OR ${scaleModel.teamId} IN ${teamIdsIn(sql.placeholder('readsTeams'))})`;
+
+export function modelReadScope(viewer: SessionUser): ReadScope {
+	const aerodynamicist = viewer.roles.includes('aerodynamicist');
+	return readScope(isAdmin(viewer), aerodynamicist ? viewer.teams.map((t) => t.id) : []);
 }
 
 export function canReadCampaign(viewer: SessionUser, c: CampaignAccessFacts): boolean {
@@ -67,16 +83,18 @@ export function canReadCampaign(viewer: SessionUser, c: CampaignAccessFacts): bo
 
 /**
  * canReadCampaign as a query condition, so listings filter in SQL; the two must agree (tested
- * in tests/server/campaigns.test.ts).
+ * in tests/server/campaigns.test.ts). Bound to `campaignReadScope(viewer)`, so the listing is
+ * prepared once.
  */
-export function readableCampaigns(viewer: SessionUser): SQL | undefined {
-	if (isAdmin(viewer)) return undefined;
+export const readableCampaigns: SQL = sql`(${sql.placeholder('readsAll')} = 1
+	OR ${campaign.teamId} IN ${teamIdsIn(sql.placeholder('readsTeams'))}
+	OR (${sql.placeholder('readsSubmitted')} = 1 AND ${campaign.lastRevision} > 0))`;
+
+export function campaignReadScope(viewer: SessionUser): ReadScope {
+	// Staff see a campaign from its first submission on, its later drafts included.
 	const staff = viewer.roles.includes('reviewer') || viewer.roles.includes('operator');
-	const teamIds = viewer.roles.includes('aerodynamicist') ? viewer.teams.map((t) => t.id) : [];
-	return or(
-		teamIds.length ? inArray(campaign.teamId, teamIds) : sql`0`,
-		staff ? gt(campaign.lastRevision, 0) : sql`0`
-	);
+	const aerodynamicist = viewer.roles.includes('aerodynamicist');
+	return readScope(isAdmin(viewer), aerodynamicist ? viewer.teams.map((t) => t.id) : [], staff);
 }
 
 /** Only the owner edits, and only while the campaign is a draft. */

@@ -1,9 +1,17 @@
-import { desc, eq } from 'drizzle-orm';
+import { desc, eq, sql } from 'drizzle-orm';
 import { settingFindings } from '../calc';
 import type { SessionUser } from '../roles';
 import type { CampaignDefinition, CampaignInput } from '../schemas/campaign';
-import { can, canEditCampaign, canReadCampaign, ownsCampaign, readableCampaigns } from './access';
+import {
+	campaignReadScope,
+	can,
+	canEditCampaign,
+	canReadCampaign,
+	ownsCampaign,
+	readableCampaigns
+} from './access';
 import { writeTransaction, type Db, type DbOrTx } from './db/open';
+import { preparedPerDatabase } from './db/prepared';
 import { campaign, facility, scaleModel, team, user } from './db/schema';
 import { getFacility, type Facility } from './facilities';
 import { getModelFor, type ScaleModel } from './models';
@@ -27,8 +35,8 @@ export type CampaignDetail = Campaign & {
 	ownerName: string;
 };
 
-export function listCampaignsFor(db: Db, viewer: SessionUser): CampaignListing[] {
-	return db
+const campaignListing = preparedPerDatabase((db) =>
+	db
 		.select({
 			id: campaign.id,
 			name: campaign.name,
@@ -48,27 +56,43 @@ export function listCampaignsFor(db: Db, viewer: SessionUser): CampaignListing[]
 		.innerJoin(facility, eq(facility.id, campaign.facilityId))
 		.innerJoin(team, eq(team.id, campaign.teamId))
 		.innerJoin(user, eq(user.id, campaign.ownerId))
-		.where(readableCampaigns(viewer))
+		.where(readableCampaigns)
 		.orderBy(desc(campaign.updatedAt))
-		.all()
+		.prepare()
+);
+
+export function listCampaignsFor(db: Db, viewer: SessionUser): CampaignListing[] {
+	return campaignListing(db)
+		.all(campaignReadScope(viewer))
 		.map((c) => ({ ...c, ownerName: c.ownerName ?? '' }));
 }
 
+// A campaign's pages and API calls open it by id on every request.
+const campaignById = preparedPerDatabase((db) => {
+	const id = sql.placeholder('id');
+	return {
+		campaign: db.select().from(campaign).where(eq(campaign.id, id)).prepare(),
+		model: db
+			.select({ model: scaleModel, teamName: team.name })
+			.from(scaleModel)
+			.innerJoin(team, eq(team.id, scaleModel.teamId))
+			.where(eq(scaleModel.id, id))
+			.prepare(),
+		ownerName: db.select({ name: user.name }).from(user).where(eq(user.id, id)).prepare()
+	};
+});
+
 /** The campaign with its model and facility if the viewer may read it; else undefined (404). */
 export function getCampaignFor(
-	db: DbOrTx,
+	db: Db,
 	viewer: SessionUser,
 	id: string
 ): CampaignDetail | undefined {
-	const row = db.select().from(campaign).where(eq(campaign.id, id)).get();
+	const queries = campaignById(db);
+	const row = queries.campaign.get({ id });
 	if (!row || !canReadCampaign(viewer, row)) return undefined;
-	const model = db
-		.select({ model: scaleModel, teamName: team.name })
-		.from(scaleModel)
-		.innerJoin(team, eq(team.id, scaleModel.teamId))
-		.where(eq(scaleModel.id, row.modelId))
-		.get()!;
-	const owner = db.select({ name: user.name }).from(user).where(eq(user.id, row.ownerId)).get();
+	const model = queries.model.get({ id: row.modelId })!;
+	const owner = queries.ownerName.get({ id: row.ownerId });
 	return {
 		...row,
 		model: { ...model.model, teamName: model.teamName },

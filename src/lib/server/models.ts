@@ -1,8 +1,9 @@
-import { and, asc, desc, eq, inArray } from 'drizzle-orm';
+import { and, asc, desc, eq } from 'drizzle-orm';
 import type { SessionUser } from '../roles';
 import { ATTACHMENT_MAX_BYTES, scaleModelSchema, type ScaleModelInput } from '../schemas/model';
-import { canReadModel, canWriteModel, readableModelTeams } from './access';
+import { canReadModel, canWriteModel, modelReadScope, readableModels } from './access';
 import { writeTransaction, type Db, type DbOrTx } from './db/open';
+import { preparedPerDatabase } from './db/prepared';
 import { modelAttachment, scaleModel, team } from './db/schema';
 import { refuse, type Outcome } from './outcome';
 import { sniffAttachmentType } from './sniff';
@@ -30,16 +31,12 @@ const flatten = ({
 });
 
 /** Models visible to the user: their own teams' only (admins: all), since clients' work is confidential. */
+const modelListing = preparedPerDatabase((db) =>
+	withTeam(db).where(readableModels).orderBy(asc(team.name), asc(scaleModel.name)).prepare()
+);
+
 export function listModelsFor(db: Db, viewer: SessionUser): ScaleModel[] {
-	const query = withTeam(db).orderBy(asc(team.name), asc(scaleModel.name));
-	const teamIds = readableModelTeams(viewer);
-	if (teamIds === 'all') return query.all().map(flatten);
-	if (!teamIds.length) return [];
-	return withTeam(db)
-		.where(inArray(scaleModel.teamId, teamIds))
-		.orderBy(asc(team.name), asc(scaleModel.name))
-		.all()
-		.map(flatten);
+	return modelListing(db).all(modelReadScope(viewer)).map(flatten);
 }
 
 /** The model if the viewer may see it; otherwise undefined, so callers answer 404 alike. */

@@ -6,6 +6,7 @@ export type { SessionUser, TeamRef };
 import type { Invitation } from '../schemas/user';
 import { hashPassword } from './auth/password';
 import { writeTransaction, type Db, type DbOrTx } from './db/open';
+import { preparedPerDatabase } from './db/prepared';
 import { invitation, team, teamMember, user, userRole } from './db/schema';
 import { refuse, type Outcome } from './outcome';
 
@@ -30,21 +31,51 @@ function rolesAndTeams(db: Db, userIds: string[]) {
 	};
 }
 
+// Every request with a session runs these.
+const sessionQueries = preparedPerDatabase((db) => {
+	const userId = sql.placeholder('userId');
+	return {
+		account: db
+			.select({
+				id: user.id,
+				email: user.email,
+				name: user.name,
+				active: user.active,
+				sessionVersion: user.sessionVersion
+			})
+			.from(user)
+			.where(eq(user.id, userId))
+			.prepare(),
+		roles: db
+			.select({ role: userRole.role })
+			.from(userRole)
+			.where(eq(userRole.userId, userId))
+			.prepare(),
+		teams: db
+			.select({ id: team.id, name: team.name, kind: team.kind })
+			.from(teamMember)
+			.innerJoin(team, eq(team.id, teamMember.teamId))
+			.where(eq(teamMember.userId, userId))
+			.orderBy(asc(team.name))
+			.prepare()
+	};
+});
+
 /**
  * The signed-in user as of this request, or null when the account is gone, deactivated, or its
  * sessions were ended after this token was issued. Read on every request, so a change of roles
  * or a deactivation takes effect at once.
  */
 export function sessionUser(db: Db, userId: string, sessionVersion: number): SessionUser | null {
-	const row = db.select().from(user).where(eq(user.id, userId)).get();
+	const queries = sessionQueries(db);
+	const row = queries.account.get({ userId });
 	if (!row || !row.active || row.sessionVersion !== sessionVersion) return null;
-	const { rolesOf, teamsOf } = rolesAndTeams(db, [row.id]);
 	return {
 		id: row.id,
 		email: row.email,
 		name: row.name ?? row.email,
-		roles: rolesOf(row.id),
-		teams: teamsOf(row.id)
+		roles: queries.roles.all({ userId }).map((r) => r.role),
+		teams: queries.teams.all({ userId })
 	};
 }
 

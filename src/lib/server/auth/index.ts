@@ -1,11 +1,13 @@
+import type { Handle } from '@sveltejs/kit';
 import { CredentialsSignin, SvelteKitAuth } from '@auth/sveltekit';
 import Credentials from '@auth/sveltekit/providers/credentials';
-import { env } from '$env/dynamic/private';
 import { signInSchema } from '../../schemas/user';
 import { getDb } from '../db';
-import { storedSecret } from '../settings';
 import { checkCredentials, type SignInRefusal } from './credentials';
+import { authSecret } from './secret';
+import { secureCookies } from './session-cookie';
 import { SESSION_MAX_AGE_S } from './session-lifetime';
+import { decodeSessionToken, encodeSessionToken } from './session-token';
 
 class SignInRefused extends CredentialsSignin {
 	constructor(reason: SignInRefusal) {
@@ -14,16 +16,23 @@ class SignInRefused extends CredentialsSignin {
 	}
 }
 
-export const {
-	handle: authHandle,
+/**
+ * Auth.js signs in and out and writes the session cookie at sign-in. The hooks read the cookie
+ * themselves on every other request (`session-cookie.ts`), through the same token codec and
+ * cookie name, so both agree on the format and on when the cookie is Secure.
+ */
+const {
+	handle: authJsHandle,
 	signIn,
 	signOut
 } = SvelteKitAuth(async (event) => {
 	const db = getDb();
 	return {
-		secret: env.AUTH_SECRET || storedSecret(db, 'auth-secret'),
+		secret: authSecret(),
 		trustHost: true,
+		useSecureCookies: secureCookies(event.url),
 		session: { strategy: 'jwt', maxAge: SESSION_MAX_AGE_S },
+		jwt: { encode: encodeSessionToken, decode: decodeSessionToken },
 		pages: { signIn: '/signin', error: '/signin' },
 		logger: {
 			error(error) {
@@ -62,3 +71,12 @@ export const {
 		}
 	};
 });
+
+export { signIn, signOut };
+
+/**
+ * Auth.js's own endpoints (sign-in callback, sign-out, CSRF). Other requests skip it, so they
+ * have no `locals.auth`: the hooks resolve `locals.user` from the cookie instead.
+ */
+export const authHandle: Handle = (input) =>
+	input.event.url.pathname.startsWith('/auth/') ? authJsHandle(input) : input.resolve(input.event);
