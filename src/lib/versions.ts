@@ -1,5 +1,5 @@
 /** Records people edit, each carrying a version that every write must name (see server/versions). */
-export const VERSIONED_KINDS = ['campaign', 'scale-model', 'facility'] as const;
+export const VERSIONED_KINDS = ['campaign', 'scale-model', 'facility', 'booking'] as const;
 export type VersionedKind = (typeof VERSIONED_KINDS)[number];
 
 /** One field that differs between the version a writer read and the stored one. */
@@ -13,3 +13,11 @@ export type StaleDetail = {
 	changedAt: string;
 	changes: FieldChange[];
 };
+
+/** The stale detail in one sentence, for places that show a message rather than a table. */
+export function staleSentence(stale: StaleDetail): string {
+	const who = stale.changedBy.join(', ') || 'someone else';
+	const at = `${stale.changedAt.slice(0, 16).replace('T', ' ')} UTC`;
+	const what = stale.changes.map((c) => `${c.label.toLowerCase()} ${c.before} → ${c.after}`);
+	return `${who} saved this at ${at}, after you opened it${what.length ? `: ${what.join('; ')}` : ''}. Reload to see it, then make your change again.`;
+}

@@ -1,3 +1,4 @@
+import { isActionFailure } from '@sveltejs/kit';
 import { DateTime } from 'luxon';
 import { describe, expect, it } from 'vitest';
 import { facilityDefaults, facilitySchema } from '../../src/lib/schemas/facility';
@@ -12,7 +13,10 @@ import {
 } from '../../src/lib/server/bookings';
 import { createCampaign } from '../../src/lib/server/campaigns';
 import { moveCampaign, submitCampaign } from '../../src/lib/server/review';
+import * as calendarPage from '../../src/routes/(app)/facilities/[id]/calendar/+page.server';
+import * as bookingItem from '../../src/routes/api/v1/bookings/[id]/+server';
 import { approvedCampaignWorld } from './campaign-fixtures';
+import { callRoute as call } from './call-route';
 import { tempDb } from './temp-db';
 
 const ORIGIN = 'http://tunnelwright.test';
@@ -125,7 +129,7 @@ describe('booking rules', () => {
 		const [waiting] = bookableCampaigns(db, w.tunnel);
 		expect(waiting).toMatchObject({ id: campaignId, booked_s: 4 * 3600 });
 		expect(waiting!.occupancy_s).toBeGreaterThan(waiting!.booked_s);
-		expect(moveCampaign(db, w.aeroA, campaignId, 'revise')).toEqual({ ok: true });
+		expect(moveCampaign(db, w.aeroA, campaignId, 'revise')).toMatchObject({ ok: true });
 		const [entry] = listBookings(
 			db,
 			operator,
@@ -175,7 +179,7 @@ describe('booking rules', () => {
 		const b = book('2027-01-04T10:00', '2027-01-04T12:00');
 		if (!a.ok || !b.ok) throw new Error('setup');
 		expect(
-			changeBooking(db, operator, b.id, { start: at('2027-01-04T09:00') }, ORIGIN, NOW)
+			changeBooking(db, operator, b.id, { start: at('2027-01-04T09:00') }, 'any', ORIGIN, NOW)
 		).toMatchObject({ code: 'conflict' });
 		expect(
 			changeBooking(
@@ -183,22 +187,25 @@ describe('booking rules', () => {
 				operator,
 				b.id,
 				{ start: at('2027-01-04T13:00'), end: at('2027-01-04T15:00') },
+				'any',
 				ORIGIN,
 				NOW
 			)
-		).toEqual({ ok: true });
-		expect(changeBooking(db, operator, a.id, { state: 'confirmed' }, ORIGIN, NOW)).toEqual({
-			ok: true
-		});
-		expect(changeBooking(db, operator, a.id, { state: 'completed' }, ORIGIN, NOW)).toEqual({
-			ok: true
-		});
-		expect(changeBooking(db, operator, a.id, { state: 'cancelled' }, ORIGIN, NOW)).toMatchObject({
+		).toMatchObject({ ok: true });
+		expect(
+			changeBooking(db, operator, a.id, { state: 'confirmed' }, 'any', ORIGIN, NOW)
+		).toMatchObject({ ok: true });
+		expect(
+			changeBooking(db, operator, a.id, { state: 'completed' }, 'any', ORIGIN, NOW)
+		).toMatchObject({ ok: true });
+		expect(
+			changeBooking(db, operator, a.id, { state: 'cancelled' }, 'any', ORIGIN, NOW)
+		).toMatchObject({
 			code: 'conflict'
 		});
-		expect(changeBooking(db, operator, b.id, { state: 'cancelled' }, ORIGIN, NOW)).toEqual({
-			ok: true
-		});
+		expect(
+			changeBooking(db, operator, b.id, { state: 'cancelled' }, 'any', ORIGIN, NOW)
+		).toMatchObject({ ok: true });
 		// A cancelled slot frees its time.
 		expect(book('2027-01-04T13:00', '2027-01-04T15:00').ok).toBe(true);
 	});
@@ -274,5 +281,52 @@ describe('facility slot settings', () => {
 			path: ['slotStep_s'],
 			message: 'Use whole minutes.'
 		});
+	});
+});
+
+describe('a booking change names the version it read', () => {
+	it('refuses a PATCH without If-Match (428) and a stale one (412, naming the change)', async () => {
+		const { db, operator, book } = approvedWorld();
+		const slot = book('2027-01-04T08:00', '2027-01-04T10:00');
+		if (!slot.ok) throw new Error(slot.message);
+		const patch = (body: unknown, ifMatch?: string) =>
+			call(bookingItem.PATCH, db, operator, {
+				method: 'PATCH',
+				params: { id: slot.id },
+				body,
+				headers: ifMatch ? { 'if-match': ifMatch } : {}
+			});
+		expect((await patch({ note: 'blind' })).status).toBe(428);
+		const confirmed = await patch({ state: 'confirmed' }, '"1"');
+		expect(confirmed.status).toBe(200);
+		expect(confirmed.headers.get('etag')).toBe('"2"');
+		const late = await patch({ note: 'late' }, '"1"');
+		expect(late.status).toBe(412);
+		expect(late.body.error.stale.changes).toEqual([
+			{ field: 'state', label: 'State', before: 'pencilled', after: 'confirmed' }
+		]);
+	});
+
+	it('answers a stale step on the calendar 409, saying who changed what', async () => {
+		const { db, w, operator, book } = approvedWorld();
+		const slot = book('2027-01-04T08:00', '2027-01-04T10:00');
+		if (!slot.ok) throw new Error(slot.message);
+		expect(
+			changeBooking(db, operator, slot.id, { state: 'confirmed' }, 1, ORIGIN, NOW)
+		).toMatchObject({ ok: true, version: 2 });
+		const request = new Request(`${ORIGIN}/facilities/${w.tunnel}/calendar?/change`, {
+			method: 'POST',
+			body: new URLSearchParams({ bookingId: slot.id, state: 'cancelled', baseVersion: '1' })
+		});
+		const result = await calendarPage.actions.change!({
+			request,
+			url: new URL(request.url),
+			params: { id: w.tunnel },
+			locals: { db, user: operator, apiToken: null }
+		} as never);
+		expect(isActionFailure(result) && result.status).toBe(409);
+		expect((result as { data: { stepError: string } }).data.stepError).toMatch(
+			/saved this at .* state pencilled → confirmed/
+		);
 	});
 });

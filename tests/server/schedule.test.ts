@@ -63,12 +63,12 @@ describe('the operator’s schedule', () => {
 			book(w.tunnel, w.campaignId, 'Europe/Berlin', from, to);
 		const monday = tern('2027-01-04T08:00', '2027-01-04T12:00');
 		const confirmed = tern('2027-01-04T13:00', '2027-01-04T15:00');
-		changeBooking(db, w.operator, confirmed, { state: 'confirmed' }, ORIGIN, NOW);
+		changeBooking(db, w.operator, confirmed, { state: 'confirmed' }, 'any', ORIGIN, NOW);
 		const cancelled = tern('2027-01-05T09:00', '2027-01-05T10:00');
-		changeBooking(db, w.operator, cancelled, { state: 'cancelled' }, ORIGIN, NOW);
+		changeBooking(db, w.operator, cancelled, { state: 'cancelled' }, 'any', ORIGIN, NOW);
 		const done = tern('2027-01-06T09:00', '2027-01-06T10:00');
-		changeBooking(db, w.operator, done, { state: 'confirmed' }, ORIGIN, NOW);
-		changeBooking(db, w.operator, done, { state: 'completed' }, ORIGIN, NOW);
+		changeBooking(db, w.operator, done, { state: 'confirmed' }, 'any', ORIGIN, NOW);
+		changeBooking(db, w.operator, done, { state: 'completed' }, 'any', ORIGIN, NOW);
 		tern('2026-12-31T09:00', '2026-12-31T10:00'); // before the schedule starts
 		const lastWeek = tern('2027-02-12T09:00', '2027-02-12T11:00'); // Friday of the sixth week
 		tern('2027-02-15T08:00', '2027-02-15T09:00'); // the Monday after

@@ -47,6 +47,8 @@ export function listBookings(
 			...b,
 			campaignId: visible ? b.campaignId : '',
 			note: visible ? b.note : '',
+			createdBy: visible ? b.createdBy : null,
+			updatedBy: visible ? b.updatedBy : null,
 			campaignName: visible ? campaignName : null,
 			cost: visible
 				? occupancyCost((b.end.getTime() - b.start.getTime()) / 1000, f.hourlyRate)

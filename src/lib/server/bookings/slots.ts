@@ -12,6 +12,7 @@ import { writeTransaction, type Db } from '../db/open';
 import { booking, campaign } from '../db/schema';
 import { getFacility } from '../facilities';
 import { refuse, type Outcome } from '../outcome';
+import { claimVersion, type BaseVersion, type StaleRefusal } from '../versions';
 import { slotProblem, when } from './conflicts';
 import { notifyBooking } from './notices';
 
@@ -70,7 +71,8 @@ export function createBooking(
 				start: input.start,
 				end: input.end,
 				note: input.note,
-				createdBy: viewer.id
+				createdBy: viewer.id,
+				updatedBy: viewer.id
 			})
 			.returning({ id: booking.id })
 			.get();
@@ -99,9 +101,10 @@ export function changeBooking(
 	viewer: SessionUser,
 	bookingId: string,
 	change: BookingChange,
+	base: BaseVersion,
 	origin: string,
 	now = Date.now()
-): Outcome {
+): Outcome<{ version: number }> | StaleRefusal {
 	if (!canBook(viewer)) return refuse('forbidden', 'Only operators and admins change bookings.');
 	return writeTransaction(db, (tx) => {
 		const b = tx.select().from(booking).where(eq(booking.id, bookingId)).get();
@@ -122,12 +125,16 @@ export function changeBooking(
 			const problem = slotProblem(tx, f, slot, now, b.id);
 			if (problem) return problem;
 		}
+		const claimed = claimVersion(tx, 'booking', b, bookingValues(b), base);
+		if (!claimed.ok) return claimed;
 		tx.update(booking)
 			.set({
 				start: new Date(slot.start),
 				end: new Date(slot.end),
 				state: change.state ?? b.state,
 				note: change.note ?? b.note,
+				version: claimed.next,
+				updatedBy: viewer.id,
 				updatedAt: new Date(now)
 			})
 			.where(eq(booking.id, b.id))
@@ -148,9 +155,17 @@ export function changeBooking(
 				`The ${f.name} slot for “${c.name}” on ${when(b.start)} is cancelled.`,
 				origin
 			);
-		return { ok: true as const };
+		return { ok: true as const, version: claimed.next };
 	});
 }
+
+/** What a booking's edit history keeps: the slot as the calendar shows it. */
+const bookingValues = (b: Booking) => ({
+	start: b.start.toISOString(),
+	end: b.end.toISOString(),
+	state: b.state,
+	note: b.note
+});
 
 /** A campaign's slots, for its own page. */
 export function campaignSlots(db: Db, campaignId: string) {

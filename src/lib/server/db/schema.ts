@@ -417,9 +417,7 @@ export const booking = sqliteTable(
 		note: text('note').notNull().default(''),
 		createdBy: text('created_by').references(() => user.id, { onDelete: 'set null' }),
 		createdAt: createdAt(),
-		updatedAt: integer('updated_at', { mode: 'timestamp_ms' })
-			.notNull()
-			.default(sql`(unixepoch('subsec') * 1000)`)
+		...versioned()
 	},
 	(t) => [
 		index('booking_active_start')

@@ -29,7 +29,10 @@ import { getFacility } from '$lib/server/facilities';
 import { requirePermission, requireUser } from '$lib/server/guards';
 import { refuse, STATUS_OF_REFUSAL, type Outcome } from '$lib/server/outcome';
 import type { Actions, PageServerLoad } from './$types';
+import { postedBaseVersion, withBaseVersion } from '$lib/server/form-versions';
 import { postedForm, validatePosted } from '$lib/server/forms';
+import type { StaleRefusal } from '$lib/server/versions';
+import { staleSentence } from '$lib/versions';
 
 /** Each campaign's booking form has its own id, so a refusal lands in that campaign's form. */
 const bookFormId = (campaignId: string) => `book-${campaignId}`;
@@ -103,13 +106,15 @@ type LocalSlotForm = SuperValidated<{ start: string; end: string }>;
 function saveSlotForm(
 	form: LocalSlotForm,
 	timeZone: string,
-	save: (slot: { start: Date; end: Date }) => Outcome<unknown>,
+	save: (slot: { start: Date; end: Date }) => Outcome<unknown> | StaleRefusal,
 	done: string
 ) {
 	const slot = localSlotToInstants(form.data, timeZone);
 	if (!slot) return setError(form, 'start', 'Give a date and time.');
 	const saved = save(slot);
 	if (!saved.ok) {
+		// A form carries no If-Match, so a stale slot is a conflict (409), told in words.
+		if ('stale' in saved) return setError(form, '', staleSentence(saved.stale), { status: 409 });
 		const field = saved.field === 'start' || saved.field === 'end' ? saved.field : '';
 		return setError(form, field, saved.message, { status: STATUS_OF_REFUSAL[saved.code] });
 	}
@@ -167,26 +172,36 @@ export const actions: Actions = {
 		return saveSlotForm(
 			form,
 			facility.timeZone,
-			(slot) => changeBooking(locals.db, user, bookingId, slot, url.origin),
+			(slot) =>
+				withBaseVersion(postedBaseVersion(posted), (base) =>
+					changeBooking(locals.db, user, bookingId, slot, base, url.origin)
+				),
 			'Slot moved.'
 		);
 	},
 
 	change: async ({ locals, params, request, url }) => {
 		const { user, facility } = bookersFacility(locals, params.id);
-		const posted = Object.fromEntries((await postedForm(request)) ?? []);
+		const form = await postedForm(request);
+		const posted = Object.fromEntries(form ?? []);
 		const found = findBookingFor(locals.db, user, String(posted.bookingId ?? ''), facility.id);
 		if (!found.ok) error(STATUS_OF_REFUSAL[found.code], { message: found.message });
 		const parsed = changeForm.safeParse(posted);
 		if (!parsed.success) return fail(400, { stepError: 'Choose what the slot becomes.' });
-		const changed = changeBooking(
-			locals.db,
-			user,
-			found.booking.id,
-			{ state: parsed.data.state },
-			url.origin
+		const changed = withBaseVersion(postedBaseVersion(form), (base) =>
+			changeBooking(
+				locals.db,
+				user,
+				found.booking.id,
+				{ state: parsed.data.state },
+				base,
+				url.origin
+			)
 		);
-		if (!changed.ok) return fail(STATUS_OF_REFUSAL[changed.code], { stepError: changed.message });
+		if (!changed.ok)
+			return 'stale' in changed
+				? fail(409, { stepError: staleSentence(changed.stale) })
+				: fail(STATUS_OF_REFUSAL[changed.code], { stepError: changed.message });
 		return { changed: parsed.data.state };
 	},
 
