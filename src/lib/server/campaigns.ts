@@ -187,13 +187,15 @@ export function updateCampaign(
 		if (!links.ok) return links;
 		if (links.model.teamId !== existing.teamId)
 			return refuse('invalid', 'The model must belong to the campaign’s team.', 'modelId');
-		const claimed = claimVersion(tx, 'campaign', existing, campaignInput(existing), base);
+		const claimed = claimVersion(tx, 'campaign', existing, campaignInput(existing), base, {
+			by: viewer.id
+		});
 		if (!claimed.ok) return claimed;
 		tx.update(campaign)
-			.set({ ...split(input), version: claimed.next, updatedBy: viewer.id, updatedAt: new Date() })
+			.set({ ...split(input), ...claimed.stamp })
 			.where(eq(campaign.id, id))
 			.run();
-		return { ok: true, version: claimed.next };
+		return { ok: true, version: claimed.stamp.version };
 	});
 }
 

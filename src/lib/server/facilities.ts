@@ -52,12 +52,12 @@ export function updateFacility(
 		if (nameTaken(tx, input.name, id))
 			return refuse('conflict', 'A facility of this name exists.', 'name');
 		const values = editableValues(facilitySchema, existing);
-		const claimed = claimVersion(tx, 'facility', existing, values, base);
+		const claimed = claimVersion(tx, 'facility', existing, values, base, { by: viewer.id });
 		if (!claimed.ok) return claimed;
 		tx.update(facility)
-			.set({ ...input, version: claimed.next, updatedBy: viewer.id, updatedAt: new Date() })
+			.set({ ...input, ...claimed.stamp })
 			.where(eq(facility.id, id))
 			.run();
-		return { ok: true, version: claimed.next };
+		return { ok: true, version: claimed.stamp.version };
 	});
 }

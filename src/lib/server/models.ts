@@ -105,13 +105,13 @@ export function updateModel(
 			return refuse('conflict', 'Your team already has a model of this name.', 'name');
 		}
 		const values = editableValues(scaleModelSchema, existing);
-		const claimed = claimVersion(tx, 'scale-model', existing, values, base);
+		const claimed = claimVersion(tx, 'scale-model', existing, values, base, { by: viewer.id });
 		if (!claimed.ok) return claimed;
 		tx.update(scaleModel)
-			.set({ ...input, version: claimed.next, updatedBy: viewer.id, updatedAt: new Date() })
+			.set({ ...input, ...claimed.stamp })
 			.where(eq(scaleModel.id, id))
 			.run();
-		return { ok: true, version: claimed.next };
+		return { ok: true, version: claimed.stamp.version };
 	});
 }
 

@@ -29,19 +29,23 @@ export type VersionedRow = {
 	updatedAt: Date;
 };
 
+/** What every accepted write of a versioned record sets beside its own fields. */
+export type VersionStamp = { version: number; updatedBy: string; updatedAt: Date };
+
 /**
  * Checks the writer's version against the stored one and, when they match, files the stored
- * values in the edit history so a later stale writer can be told what changed. Call it inside
- * the immediate transaction that then writes `version + 1`: the check and the write must not
- * let another process in between.
+ * values in the edit history so a later stale writer can be told what changed, and answers the
+ * stamp the write sets. Call it inside the immediate transaction that then writes: the check and
+ * the write must not let another process in between.
  */
 export function claimVersion(
 	tx: Tx,
 	kind: VersionedKind,
 	stored: VersionedRow,
 	values: Record<string, unknown>,
-	base: BaseVersion
-): { ok: true; next: number } | StaleRefusal {
+	base: BaseVersion,
+	writer: { by: string; at?: Date }
+): { ok: true; stamp: VersionStamp } | StaleRefusal {
 	if (base !== 'any' && base !== stored.version)
 		return {
 			ok: false,
@@ -60,7 +64,10 @@ export function claimVersion(
 		})
 		.onConflictDoNothing()
 		.run();
-	return { ok: true, next: stored.version + 1 };
+	return {
+		ok: true,
+		stamp: { version: stored.version + 1, updatedBy: writer.by, updatedAt: writer.at ?? new Date() }
+	};
 }
 
 /** Drops the edit history of a record that is deleted. */

@@ -125,7 +125,10 @@ export function changeBooking(
 			const problem = slotProblem(tx, f, slot, now, b.id);
 			if (problem) return problem;
 		}
-		const claimed = claimVersion(tx, 'booking', b, bookingValues(b), base);
+		const claimed = claimVersion(tx, 'booking', b, bookingValues(b), base, {
+			by: viewer.id,
+			at: new Date(now)
+		});
 		if (!claimed.ok) return claimed;
 		tx.update(booking)
 			.set({
@@ -133,9 +136,7 @@ export function changeBooking(
 				end: new Date(slot.end),
 				state: change.state ?? b.state,
 				note: change.note ?? b.note,
-				version: claimed.next,
-				updatedBy: viewer.id,
-				updatedAt: new Date(now)
+				...claimed.stamp
 			})
 			.where(eq(booking.id, b.id))
 			.run();
@@ -155,7 +156,7 @@ export function changeBooking(
 				`The ${f.name} slot for “${c.name}” on ${when(b.start)} is cancelled.`,
 				origin
 			);
-		return { ok: true as const, version: claimed.next };
+		return { ok: true as const, version: claimed.stamp.version };
 	});
 }
 

@@ -182,13 +182,13 @@ export const actions: Actions = {
 
 	change: async ({ locals, params, request, url }) => {
 		const { user, facility } = bookersFacility(locals, params.id);
-		const form = await postedForm(request);
-		const posted = Object.fromEntries(form ?? []);
+		const body = await postedForm(request);
+		const posted = Object.fromEntries(body ?? []);
 		const found = findBookingFor(locals.db, user, String(posted.bookingId ?? ''), facility.id);
 		if (!found.ok) error(STATUS_OF_REFUSAL[found.code], { message: found.message });
 		const parsed = changeForm.safeParse(posted);
 		if (!parsed.success) return fail(400, { stepError: 'Choose what the slot becomes.' });
-		const changed = withBaseVersion(postedBaseVersion(form), (base) =>
+		const changed = withBaseVersion(postedBaseVersion(body), (base) =>
 			changeBooking(
 				locals.db,
 				user,
