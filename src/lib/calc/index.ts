@@ -109,3 +109,21 @@ export type { WakeSurvey, WakeSurveyDrag } from './wake-drag';
 export { reynoldsSweep } from './reynolds-sweep';
 export type { ReynoldsPoint, ReynoldsSweep } from './reynolds-sweep';
 export { occupancyCost, toSignificant } from './money';
+export {
+	amountDifference,
+	CHARGE_ITEMS,
+	creditCharges,
+	minorDigits,
+	occupancyTimeCharges,
+	priceCharges,
+	TIME_ITEMS,
+	toMinorUnits
+} from './pricing';
+export type {
+	ChargeItem,
+	FacilityRates,
+	PriceLine,
+	PricedCharges,
+	TimeCharge,
+	TimeItem
+} from './pricing';

@@ -41,6 +41,13 @@ export const INSTRUMENT_UNCERTAINTY_DEFAULTS = {
 	humidityUncertainty: 0.03
 } as const;
 
+/** Money as a decimal string with at most two decimals, so it never passes through a float. */
+const amount = (example: string) =>
+	z
+		.string()
+		.trim()
+		.regex(/^\d{1,7}(\.\d{1,2})?$/, { error: `Enter an amount such as ${example}.` });
+
 const uncertainty = (max: number, fallback: number) => z.number().min(0).max(max).default(fallback);
 
 /**
@@ -77,10 +84,17 @@ export const facilitySchema = z
 		timeZone: z
 			.string()
 			.refine(isTimeZone, { error: 'Use an IANA time zone such as Europe/Berlin.' }),
-		hourlyRate: z
+		hourlyRate: amount('780.00'),
+		setUpFee: amount('1200.00').default('0.00'),
+		tearDownFee: amount('600.00').default('0.00'),
+		minimumCharge: amount('2000.00').default('0.00'),
+		taxRate_percent: z
 			.string()
 			.trim()
-			.regex(/^\d{1,7}(\.\d{1,2})?$/, { error: 'Enter an amount such as 780.00.' }),
+			.regex(/^\d{1,2}(\.\d{1,2})?$/, { error: 'Enter a percentage such as 19 or 7.5.' })
+			.default('0'),
+		quoteValidity_days: z.int().min(1).max(365).default(30),
+		quoteRequiredForBooking: z.boolean().default(false),
 		currency: z
 			.string()
 			.trim()
@@ -184,6 +198,12 @@ export function facilityDefaults(): FacilityInput {
 		openingHours: { mon: weekday, tue: weekday, wed: weekday, thu: weekday, fri: weekday },
 		timeZone: 'Europe/Berlin',
 		hourlyRate: '500.00',
+		setUpFee: '0.00',
+		tearDownFee: '0.00',
+		minimumCharge: '0.00',
+		taxRate_percent: '0',
+		quoteValidity_days: 30,
+		quoteRequiredForBooking: false,
 		currency: 'EUR',
 		siteAltitude_m: 0,
 		typicalTemperature_K: 293.15,

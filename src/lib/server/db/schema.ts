@@ -19,6 +19,13 @@ import { CAMPAIGN_ACTIONS, CAMPAIGN_STATES, VERDICTS } from '../../workflow';
 import type { ApiTokenScope } from '../../schemas/api-token';
 import { INSTRUMENT_UNCERTAINTY_DEFAULTS, SLOT_DEFAULTS } from '../../schemas/facility';
 import { READING_KINDS } from '../../schemas/readings';
+import {
+	BILLING_ACTIONS,
+	INVOICE_KINDS,
+	QUOTE_STATES,
+	type FacilityRates,
+	type PriceLine
+} from '../../billing/types';
 
 const id = () =>
 	text('id')
@@ -146,6 +153,17 @@ export const facility = sqliteTable('facility', {
 	/** Decimal string, so money never passes through binary floating point. */
 	hourlyRate: text('hourly_rate').notNull(),
 	currency: text('currency').notNull(),
+	/** Charged once per campaign, on its first invoice; decimal strings like the rate. */
+	setUpFee: text('set_up_fee').notNull().default('0.00'),
+	tearDownFee: text('tear_down_fee').notNull().default('0.00'),
+	/** The least a quote or invoice comes to before tax. */
+	minimumCharge: text('minimum_charge').notNull().default('0.00'),
+	taxRate_percent: text('tax_rate_percent').notNull().default('0'),
+	quoteValidity_days: integer('quote_validity_days').notNull().default(30),
+	/** Whether a slot may be booked only for a campaign whose client accepted a quote. */
+	quoteRequiredForBooking: integer('quote_required_for_booking', { mode: 'boolean' })
+		.notNull()
+		.default(false),
 	siteAltitude_m: real('site_altitude_m').notNull(),
 	typicalTemperature_K: real('typical_temperature_k').notNull(),
 	typicalRelativeHumidity: real('typical_relative_humidity').notNull(),
@@ -323,7 +341,7 @@ export const reviewNote = sqliteTable(
 
 /** Audit entries that are not workflow transitions: readings arriving or replacing others. */
 export const READINGS_ACTIONS = ['upload-readings', 'replace-readings'] as const;
-const AUDIT_ACTIONS = [...CAMPAIGN_ACTIONS, ...READINGS_ACTIONS] as const;
+const AUDIT_ACTIONS = [...CAMPAIGN_ACTIONS, ...READINGS_ACTIONS, ...BILLING_ACTIONS] as const;
 
 /** Every transition, decision and readings upload of a campaign, kept for good. */
 export const auditEvent = sqliteTable(
@@ -551,3 +569,135 @@ export const runCondition = sqliteTable(
 			.where(sql`superseded_by is null`)
 	]
 );
+
+/**
+ * A priced offer of tunnel time for one approved revision. It keeps the facility's rates as they
+ * were when issued (with the facility version they came from), so later rate changes leave it be.
+ * Only its state and the client's decision change after it is issued.
+ */
+export const quote = sqliteTable(
+	'quote',
+	{
+		id: id(),
+		campaignId: text('campaign_id')
+			.notNull()
+			.references(() => campaign.id, { onDelete: 'restrict' }),
+		revisionId: text('revision_id')
+			.notNull()
+			.references(() => campaignRevision.id, { onDelete: 'restrict' }),
+		revisionNumber: integer('revision_number').notNull(),
+		facilityId: text('facility_id')
+			.notNull()
+			.references(() => facility.id, { onDelete: 'restrict' }),
+		teamId: text('team_id')
+			.notNull()
+			.references(() => team.id, { onDelete: 'restrict' }),
+		facilityVersion: integer('facility_version').notNull(),
+		rates: text('rates', { mode: 'json' }).$type<FacilityRates>().notNull(),
+		state: text('state', { enum: QUOTE_STATES }).notNull().default('issued'),
+		occupied_s: real('occupied_s').notNull(),
+		lines: text('lines', { mode: 'json' }).$type<PriceLine[]>().notNull(),
+		subtotal: text('subtotal').notNull(),
+		tax: text('tax').notNull(),
+		total: text('total').notNull(),
+		validUntil: integer('valid_until', { mode: 'timestamp_ms' }).notNull(),
+		issuedBy: text('issued_by').references(() => user.id, { onDelete: 'set null' }),
+		issuedAt: createdAt(),
+		decidedBy: text('decided_by').references(() => user.id, { onDelete: 'set null' }),
+		decidedAt: integer('decided_at', { mode: 'timestamp_ms' }),
+		decisionNote: text('decision_note').notNull().default('')
+	},
+	(t) => [index('quote_campaign').on(t.campaignId, t.issuedAt)]
+);
+
+/**
+ * An invoice or a credit note, numbered in one unbroken sequence per facility. What it bills is
+ * never changed once issued; only the payment columns and `creditedBy` are set later.
+ */
+export const invoice = sqliteTable(
+	'invoice',
+	{
+		id: id(),
+		facilityId: text('facility_id')
+			.notNull()
+			.references(() => facility.id, { onDelete: 'restrict' }),
+		number: integer('number').notNull(),
+		kind: text('kind', { enum: INVOICE_KINDS }).notNull(),
+		campaignId: text('campaign_id')
+			.notNull()
+			.references(() => campaign.id, { onDelete: 'restrict' }),
+		teamId: text('team_id')
+			.notNull()
+			.references(() => team.id, { onDelete: 'restrict' }),
+		quoteId: text('quote_id').references(() => quote.id, { onDelete: 'restrict' }),
+		/** The invoice a credit note corrects. */
+		creditsInvoiceId: text('credits_invoice_id'),
+		rates: text('rates', { mode: 'json' }).$type<FacilityRates>().notNull(),
+		occupied_s: real('occupied_s').notNull(),
+		lines: text('lines', { mode: 'json' }).$type<PriceLine[]>().notNull(),
+		subtotal: text('subtotal').notNull(),
+		tax: text('tax').notNull(),
+		total: text('total').notNull(),
+		reason: text('reason').notNull().default(''),
+		issuedBy: text('issued_by').references(() => user.id, { onDelete: 'set null' }),
+		issuedAt: createdAt(),
+		/** The credit note that cancelled this invoice. */
+		creditedBy: text('credited_by'),
+		checkoutSessionId: text('checkout_session_id'),
+		paidAt: integer('paid_at', { mode: 'timestamp_ms' }),
+		paymentEventId: text('payment_event_id')
+	},
+	(t) => [
+		uniqueIndex('invoice_facility_number').on(t.facilityId, t.number),
+		index('invoice_team').on(t.teamId, t.issuedAt),
+		index('invoice_campaign').on(t.campaignId)
+	]
+);
+
+/** The completed slots an invoice bills; a slot is billed again only after a credit note. */
+export const invoiceSlot = sqliteTable(
+	'invoice_slot',
+	{
+		invoiceId: text('invoice_id')
+			.notNull()
+			.references(() => invoice.id, { onDelete: 'restrict' }),
+		bookingId: text('booking_id')
+			.notNull()
+			.references(() => booking.id, { onDelete: 'restrict' }),
+		start: integer('start_ms', { mode: 'timestamp_ms' }).notNull(),
+		end: integer('end_ms', { mode: 'timestamp_ms' }).notNull()
+	},
+	(t) => [
+		primaryKey({ columns: [t.invoiceId, t.bookingId] }),
+		index('invoice_slot_booking').on(t.bookingId)
+	]
+);
+
+/** Payment-service events already handled, by their id, so a replayed one changes nothing. */
+export const paymentEvent = sqliteTable('payment_event', {
+	eventId: text('event_id').primaryKey(),
+	type: text('type').notNull(),
+	invoiceId: text('invoice_id'),
+	receivedAt: createdAt()
+});
+
+/**
+ * Checkout sessions of the local stand-in for the payment service (only when no real account is
+ * configured), kept in the database so every app process serves the same ones.
+ */
+export const fakeCheckoutSession = sqliteTable('fake_checkout_session', {
+	id: text('id').primaryKey(),
+	amount_minor: integer('amount_minor').notNull(),
+	currency: text('currency').notNull(),
+	description: text('description').notNull(),
+	metadata: text('metadata', { mode: 'json' }).$type<Record<string, string>>().notNull(),
+	successUrl: text('success_url').notNull(),
+	cancelUrl: text('cancel_url').notNull(),
+	status: text('status', { enum: ['open', 'complete', 'expired'] })
+		.notNull()
+		.default('open'),
+	paymentStatus: text('payment_status', { enum: ['unpaid', 'paid'] })
+		.notNull()
+		.default('unpaid'),
+	createdAt: createdAt()
+});
