@@ -20,7 +20,8 @@ export const PERMISSIONS = {
 	'read-models': ['aerodynamicist', 'admin'],
 	'keep-models': ['aerodynamicist'],
 	'book-tunnel-time': BOOKING_ROLES,
-	'edit-facilities': ['operator', 'admin']
+	'edit-facilities': ['operator', 'admin'],
+	'manage-billing': ['operator', 'admin']
 } as const satisfies Record<string, readonly Role[]>;
 export type Permission = keyof typeof PERMISSIONS;
 
@@ -152,6 +153,19 @@ export function canUploadReadings(
 		viewer.roles.includes('operator') ||
 		(viewer.roles.includes('aerodynamicist') && inTeam(viewer, c.teamId))
 	);
+}
+
+/**
+ * Quotes and invoices are read by the facility's staff who issue them and by the client team
+ * billed; reviewers judge the test, not its price, and see none.
+ */
+export function canReadBilling(viewer: SessionUser, doc: { teamId: string }): boolean {
+	return can(viewer, 'manage-billing') || actsForClient(viewer, doc);
+}
+
+/** The client team answers quotes and pays invoices: the billed team's aerodynamicists. */
+export function actsForClient(viewer: SessionUser, doc: { teamId: string }): boolean {
+	return viewer.roles.includes('aerodynamicist') && inTeam(viewer, doc.teamId);
 }
 
 /**

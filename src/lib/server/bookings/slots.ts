@@ -10,6 +10,7 @@ import type { BookingChange, BookingInput } from '../../schemas/booking';
 import { canBook, canReadCampaign } from '../access';
 import { writeTransaction, type Db } from '../db/open';
 import { booking, campaign } from '../db/schema';
+import { acceptedQuoteFor } from '../billing/quotes';
 import { getFacility } from '../facilities';
 import { refuse, type Outcome } from '../outcome';
 import { claimVersion, type BaseVersion, type StaleRefusal } from '../versions';
@@ -59,6 +60,12 @@ export function createBooking(
 			);
 		if (c.facilityId !== facilityId)
 			return refuse('invalid', `That campaign is planned for another facility.`, 'campaignId');
+		if (f.quoteRequiredForBooking && !acceptedQuoteFor(tx, c.id, c.approvedRevisionId))
+			return refuse(
+				'conflict',
+				`${f.name} books only campaigns whose client accepted a quote for the approved revision.`,
+				'campaignId'
+			);
 		const slot = { start: input.start.getTime(), end: input.end.getTime() };
 		const problem = slotProblem(tx, f, slot, now);
 		if (problem) return problem;

@@ -1,7 +1,8 @@
 import type { UploadSummary } from '../../readings/types';
 import type { SessionUser } from '../../roles';
 import type { Db, Tx } from '../db/open';
-import { auditEvent, campaign, readingsUpload, runCondition } from '../db/schema';
+import { campaign, readingsUpload, runCondition } from '../db/schema';
+import { recordCampaignEvent } from '../review/audit';
 import type { CheckedReading, RunConditions } from './check';
 import type { KeptOriginal } from './original-file';
 import type { ReadingsFile, ReadingsRefusal } from './receive';
@@ -87,17 +88,13 @@ export function storeReadings(
 	const runCount = checked.conditions.length;
 	const described = `“${file.fileName}”: ${checked.readings.length} readings in ${runCount} run(s), SHA-256 ${file.sha256.slice(0, 12)}…`;
 	const replaced = replacesAnything(replacement);
-	tx.insert(auditEvent)
-		.values({
-			campaignId: c.id,
-			actorId: viewer.id,
-			actorName,
-			action: replaced ? 'replace-readings' : 'upload-readings',
-			fromState: c.state,
-			toState: c.state,
-			notes: replaced ? `${described}; ${replacementNote(tx, upload.id, replacement)}` : described
-		})
-		.run();
+	recordCampaignEvent(
+		tx,
+		c,
+		{ id: viewer.id, name: actorName },
+		replaced ? 'replace-readings' : 'upload-readings',
+		replaced ? `${described}; ${replacementNote(tx, upload.id, replacement)}` : described
+	);
 	return {
 		ok: true,
 		id: upload.id,

@@ -1,0 +1,15 @@
+/**
+ * Money for tunnel time: quotes priced from an approved revision's estimate, invoices and credit
+ * notes from completed slots, in one numbered sequence per facility. Payment is in
+ * `server/payments`.
+ */
+export {
+	acceptedQuoteFor,
+	campaignQuotes,
+	decideQuote,
+	getQuote,
+	issueQuote,
+	type Quote
+} from './quotes';
+export { creditInvoice, getInvoice, issueInvoice, listInvoices, type Invoice } from './invoices';
+export { invoiceView, quoteResource, invoiceResource, type InvoiceView } from './views';
