@@ -61,6 +61,11 @@ export const DEMO_FACILITIES: FacilityRow[] = [
 		openingHours: WEEKDAYS('07:00', '19:00'),
 		timeZone: 'Europe/Berlin',
 		hourlyRate: '780.00',
+		setUpFee: '1200.00',
+		tearDownFee: '600.00',
+		minimumCharge: '2500.00',
+		taxRate_percent: '19',
+		quoteValidity_days: 30,
 		currency: 'EUR',
 		siteAltitude_m: 120,
 		typicalTemperature_K: 293.15,
@@ -89,6 +94,11 @@ export const DEMO_FACILITIES: FacilityRow[] = [
 		openingHours: WEEKDAYS('08:00', '17:00', ['mon', 'tue', 'wed', 'thu', 'fri', 'sat']),
 		timeZone: 'Europe/Berlin',
 		hourlyRate: '420.00',
+		setUpFee: '350.00',
+		tearDownFee: '250.00',
+		minimumCharge: '1500.00',
+		taxRate_percent: '19',
+		quoteValidity_days: 21,
 		currency: 'EUR',
 		siteAltitude_m: 120,
 		typicalTemperature_K: 291.15,
@@ -397,6 +407,18 @@ export const DEMO_BOOKING = {
 	campaign: 'Heron-4 forward-flight wake',
 	facility: 'Plover open-jet tunnel',
 	closure: { kind: 'maintenance' as const, reason: 'Fan bearing inspection', inDays: 6 }
+};
+
+/**
+ * The approved demo campaign's money: the open jet quoted it and the client accepted before the
+ * slots were booked; a first half-day of flow checks ran two weeks ago and is invoiced, unpaid.
+ */
+export const DEMO_BILLING = {
+	campaign: 'Heron-4 forward-flight wake',
+	client: 'aero2@demo.test',
+	acceptanceNote: 'Accepted for the spring test window.',
+	/** The completed slot: Tuesday two weeks back, in the facility's own clock. */
+	completed: { weeksAgo: 2, weekday: 2, from: '09:00', to: '13:00' }
 };
 
 /** A Gaussian wake in a traverse plane: total-pressure loss and static dip at its centre. */

@@ -1,14 +1,16 @@
-import { and, eq } from 'drizzle-orm';
+import { and, eq, inArray } from 'drizzle-orm';
 import { DateTime } from 'luxon';
 import { hashPassword } from '../src/lib/server/auth/password';
 import { databasePathFromEnv, migrateDatabase, openDatabase } from '../src/lib/server/db/open';
 import { campaignSchema } from '../src/lib/schemas/campaign';
 import {
 	bookableCampaigns,
+	changeBooking,
 	createBooking,
 	createClosure,
 	proposeFor
 } from '../src/lib/server/bookings';
+import { decideQuote, issueInvoice, issueQuote } from '../src/lib/server/billing';
 import { approvedLayout, receiveReadings } from '../src/lib/server/readings';
 import { decideRevision, submitCampaign } from '../src/lib/server/review';
 import { openObjectStore } from '../src/lib/server/storage/open';
@@ -19,6 +21,8 @@ import {
 	campaign,
 	closure,
 	facility,
+	invoice,
+	quote,
 	readingsUpload,
 	scaleModel,
 	team,
@@ -29,6 +33,7 @@ import {
 import {
 	CLIENT_TEAMS,
 	DEMO_ACCOUNTS,
+	DEMO_BILLING,
 	DEMO_BOOKING,
 	DEMO_CAMPAIGNS,
 	DEMO_FACILITIES,
@@ -184,7 +189,56 @@ const approvedDemo = db
 	.from(campaign)
 	.where(eq(campaign.name, DEMO_BOOKING.campaign))
 	.get()!;
-if (!db.select().from(booking).where(eq(booking.campaignId, approvedDemo.id)).get()) {
+// The client accepted the open jet's quote before any slot was booked.
+if (!db.select().from(quote).where(eq(quote.campaignId, approvedDemo.id)).get()) {
+	const quoted = issueQuote(db, operator, approvedDemo.id, DEMO_ORIGIN);
+	if (!quoted.ok) throw new Error(`Demo quote: ${quoted.message}`);
+	const accepted = decideQuote(
+		db,
+		person(DEMO_BILLING.client),
+		quoted.quote.id,
+		{ decision: 'accept', note: DEMO_BILLING.acceptanceNote },
+		DEMO_ORIGIN
+	);
+	if (!accepted.ok) throw new Error(`Demo quote: ${accepted.message}`);
+}
+// A first half-day of flow checks ran two weeks ago and has been invoiced.
+if (!db.select().from(invoice).where(eq(invoice.campaignId, approvedDemo.id)).get()) {
+	const { weeksAgo, weekday, from, to } = DEMO_BILLING.completed;
+	const dayRun = DateTime.now()
+		.setZone(plover.timeZone)
+		.minus({ weeks: weeksAgo })
+		.set({ weekday });
+	const at = (clock: string) =>
+		DateTime.fromISO(`${dayRun.toISODate()}T${clock}`, { zone: plover.timeZone }).toJSDate();
+	const booked = createBooking(
+		db,
+		operator,
+		plover.id,
+		{ campaignId: approvedDemo.id, start: at(from), end: at(to), note: 'Flow checks' },
+		DEMO_ORIGIN,
+		at(from).getTime() - 7 * 86_400_000
+	);
+	if (!booked.ok) throw new Error(`Demo past slot: ${booked.message}`);
+	for (const state of ['confirmed', 'completed'] as const) {
+		const moved = changeBooking(db, operator, booked.id, { state }, 'any', DEMO_ORIGIN);
+		if (!moved.ok) throw new Error(`Demo past slot: ${moved.message}`);
+	}
+	const invoiced = issueInvoice(db, operator, approvedDemo.id, DEMO_ORIGIN);
+	if (!invoiced.ok) throw new Error(`Demo invoice: ${invoiced.message}`);
+}
+if (
+	!db
+		.select()
+		.from(booking)
+		.where(
+			and(
+				eq(booking.campaignId, approvedDemo.id),
+				inArray(booking.state, ['pencilled', 'confirmed'])
+			)
+		)
+		.get()
+) {
 	const [waiting] = bookableCampaigns(db, plover.id).filter((c) => c.id === approvedDemo.id);
 	const proposal = proposeFor(db, plover.id, waiting!.occupancy_s, tomorrow.toMillis());
 	if (!proposal.ok) throw new Error(`Demo booking: ${proposal.message}`);

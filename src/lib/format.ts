@@ -1,3 +1,5 @@
+import { minorDigits } from './calc/pricing';
+
 const fixedFormats = new Map<number, Intl.NumberFormat>();
 
 /** A figure with a fixed number of decimals, grouped for reading (1 234.5). */
@@ -30,4 +32,22 @@ export function sectionKindLabel(kind: keyof typeof SECTION_KIND_LABELS): string
 /** A moment as "2026-12-01 09:30", in UTC. */
 export function utcMinute(moment: Date | string | number): string {
 	return new Date(moment).toISOString().slice(0, 16).replace('T', ' ');
+}
+
+/**
+ * A decimal-string amount with its currency, grouped for reading ("11,733.40 EUR"). Intl formats
+ * the string itself, so no digit passes through a binary float.
+ */
+export function money(amount: string, currency: string): string {
+	const digits = minorDigits(currency);
+	const format = new Intl.NumberFormat('en-GB', {
+		minimumFractionDigits: digits,
+		maximumFractionDigits: digits
+	});
+	return `${format.format(amount as Intl.StringNumericLiteral)} ${currency}`;
+}
+
+/** Seconds as hours with two decimals, the way time is billed on a quote or invoice. */
+export function billedHours(time_s: number): string {
+	return `${fixed(time_s / 3600, 2)} h`;
 }

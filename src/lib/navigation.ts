@@ -7,6 +7,7 @@ export type NavItem = {
 		| '/review'
 		| '/operations'
 		| '/facilities'
+		| '/invoices'
 		| '/admin'
 		| '/admin/outbox'
 		| '/calendar-feed'
@@ -26,6 +27,7 @@ export const NAV_ITEMS: readonly NavItem[] = [
 		label: 'Facilities',
 		roles: ['aerodynamicist', 'reviewer', 'operator', 'admin']
 	},
+	{ href: '/invoices', label: 'Invoices', roles: ['aerodynamicist', 'operator', 'admin'] },
 	{
 		href: '/calendar-feed',
 		label: 'Calendar feed',

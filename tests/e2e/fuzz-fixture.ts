@@ -27,6 +27,8 @@ export type Fixture = {
 	upload: string;
 	mail: string;
 	team: string;
+	quote: string;
+	invoice: string;
 };
 
 type Get = (actor: Actor, path: string, init?: RequestInit) => Promise<Response>;
@@ -156,7 +158,9 @@ export async function findFixture(
 			otherUser: one(`select id from user where email = ?`, 'aero2@demo.test'),
 			upload: one(`select id from readings_upload where campaign_id = ?`, approved.id),
 			mail: one(`select id from mail_outbox`),
-			team: draft.teamId
+			team: draft.teamId,
+			quote: one(`select id from quote where campaign_id = ?`, approved.id),
+			invoice: one(`select id from invoice where campaign_id = ?`, approved.id)
 		};
 	} finally {
 		db.close();

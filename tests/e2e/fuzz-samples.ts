@@ -18,6 +18,7 @@ const PRIMARY_ACTORS: [RegExp, Actor][] = [
 		'operator'
 	],
 	[/(POST|PUT) \/api\/v1\/facilities/, 'operator'],
+	[/quote|invoices/, 'operator'],
 	[/\/admin/, 'admin'],
 	[/\(auth\)|signout|calendar\/\[token\]/, 'anonymous']
 ];
@@ -37,7 +38,7 @@ export function paramsFor(target: Target, fx: Fixture): Record<string, string> {
 			? /PUT|edit|submit/.test(name)
 				? fx.draftCampaign
 				: fx.inReviewCampaign
-			: /readings|results|matrix.csv/.test(name)
+			: /readings|results|matrix.csv|quote/.test(name)
 				? fx.approvedCampaign
 				: fx.draftCampaign;
 	const id = name.includes('/campaigns/')
@@ -50,7 +51,11 @@ export function paramsFor(target: Target, fx: Fixture): Record<string, string> {
 					? fx.booking
 					: name.includes('/tokens/')
 						? fx.token
-						: 'none';
+						: name.includes('/quotes/')
+							? fx.quote
+							: name.includes('/invoices/')
+								? fx.invoice
+								: 'none';
 	return {
 		id,
 		n: String(fx.inReviewRevision),
@@ -129,6 +134,10 @@ export function samples(fx: Fixture): Record<string, Sample> {
 		'POST /api/v1/facilities/[id]/closures': json(closure),
 		'PATCH /api/v1/bookings/[id]': json({ note: 'moved' }),
 		'POST /api/v1/models': json(fx.modelBody),
+		'POST /api/v1/invoices': json({ campaignId: fx.approvedCampaign }),
+		'POST /api/v1/quotes/[id]/acceptance': json({ decision: 'accept', note: '' }),
+		'POST /(app)/campaigns/[id]/quote?/answer': form({ decision: 'decline', note: 'fuzz' }),
+		'POST /(app)/invoices/[id]?/credit': form({ reason: 'fuzz' }),
 		'PUT /api/v1/models/[id]': json(fx.modelBody),
 		'POST /api/v1/tokens': json({ name: 'fuzz', scopes: ['readings:read'] }),
 		'POST /(app)/account?/create': form({ name: 'fuzz', scopes: 'readings:read', expiresAt: '' }),

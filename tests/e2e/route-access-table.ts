@@ -45,7 +45,10 @@ export const RECORDS = {
 	/** A throwaway API token of the owner, for the revoke. */
 	apiToken: 'Alder',
 	invitation: null,
-	calendarFeed: null
+	calendarFeed: null,
+	/** The approved campaign's accepted quote and its first invoice, unpaid. */
+	quote: 'Brightwater',
+	invoice: 'Brightwater'
 } as const satisfies Record<string, 'Alder' | 'Brightwater' | null>;
 export type RecordName = keyof typeof RECORDS;
 
@@ -82,6 +85,8 @@ const FACILITY_STAFF = ['operator', 'admin'] as const;
 /** Who reads a campaign once it is submitted: its team, reviewers, operators, administrators. */
 const CAMPAIGN_READERS = ['owner', 'reviewer', 'operator', 'admin'] as const;
 const STAFF = ['reviewer', 'operator'] as const;
+/** Who sees a campaign's quotes and invoices: the client team billed and the facility's staff. */
+const BILLING_READERS = ['owner', 'operator', 'admin'] as const;
 
 // One line per route and call, however long, so the table reads as a table.
 // prettier-ignore
@@ -137,6 +142,15 @@ export const ACCESS_TABLE: readonly AccessLine[] = [
 	{ route: '/(app)/campaigns/[id]/results', call: 'load', path: '/campaigns/{approved}/results', allow: CAMPAIGN_READERS },
 	{ route: '/(app)/campaigns/[id]/results/report', call: 'load', path: '/campaigns/{approved}/results/report', allow: CAMPAIGN_READERS },
 	{ route: '/(app)/campaigns/[id]/results.csv', call: 'GET', path: '/campaigns/{approved}/results.csv', allow: CAMPAIGN_READERS },
+	// Quotes and invoices: the facility's staff and the client team billed; reviewers see none.
+	{ route: '/(app)/campaigns/[id]/quote', call: 'load', path: '/campaigns/{approved}/quote', allow: BILLING_READERS },
+	{ route: '/(app)/campaigns/[id]/quote', call: 'action:issue', path: '/campaigns/{approved}/quote', allow: FACILITY_STAFF },
+	{ route: '/(app)/campaigns/[id]/quote', call: 'action:answer', path: '/campaigns/{approved}/quote', allow: ['owner'] },
+	{ route: '/(app)/campaigns/[id]/quote', call: 'action:invoice', path: '/campaigns/{approved}/quote', allow: FACILITY_STAFF },
+	{ route: '/(app)/invoices', call: 'load', path: '/invoices', record: 'invoice', allow: ['owner', 'otherTeam', ...FACILITY_STAFF], conceal: ['otherTeam'] },
+	{ route: '/(app)/invoices/[id]', call: 'load', path: '/invoices/{invoice}', allow: BILLING_READERS },
+	{ route: '/(app)/invoices/[id]', call: 'action:credit', path: '/invoices/{invoice}', allow: FACILITY_STAFF },
+	{ route: '/(app)/invoices/[id]', call: 'action:pay', path: '/invoices/{invoice}', allow: ['owner'], changes: true },
 	{ route: '/(app)/review', call: 'load', path: '/review', record: 'inReview', allow: ['reviewer', 'admin'] },
 
 	// Models
@@ -204,6 +218,12 @@ export const ACCESS_TABLE: readonly AccessLine[] = [
 	{ route: '/api/v1/facilities/[id]/closures', call: 'POST', path: '/api/v1/facilities/{facility}/closures', allow: FACILITY_STAFF },
 	{ route: '/api/v1/bookings/[id]', call: 'PATCH', path: '/api/v1/bookings/{booking}', allow: FACILITY_STAFF, json: '{"state":"no-such-state"}' },
 	{ route: '/api/v1/bookings/[id]', call: 'DELETE', path: '/api/v1/bookings/{booking}', allow: FACILITY_STAFF, changes: true },
+	{ route: '/api/v1/campaigns/[id]/quote', call: 'GET', path: '/api/v1/campaigns/{approved}/quote', allow: BILLING_READERS },
+	{ route: '/api/v1/campaigns/[id]/quote', call: 'POST', path: '/api/v1/campaigns/{approved}/quote', allow: FACILITY_STAFF },
+	{ route: '/api/v1/quotes/[id]/acceptance', call: 'POST', path: '/api/v1/quotes/{quote}/acceptance', allow: ['owner'] },
+	{ route: '/api/v1/invoices', call: 'GET', path: '/api/v1/invoices', record: 'invoice', allow: ['owner', 'otherTeam', ...FACILITY_STAFF], conceal: ['otherTeam'] },
+	{ route: '/api/v1/invoices', call: 'POST', path: '/api/v1/invoices', record: 'invoice', allow: FACILITY_STAFF },
+	{ route: '/api/v1/invoices/[id]', call: 'GET', path: '/api/v1/invoices/{invoice}', allow: BILLING_READERS },
 
 	// JSON API: personal tokens (sessions only, so a leaked token cannot mint more)
 	{ route: '/api/v1/tokens', call: 'GET', path: '/api/v1/tokens', allow: SIGNED_IN },

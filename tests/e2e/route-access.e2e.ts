@@ -10,6 +10,7 @@ import { afterAll, beforeAll, describe, expect, it, type ExpectStatic } from 'vi
 import { startSeededApp, type RunningApp } from '../../scripts/app-server';
 import {
 	DEMO_ACCOUNTS,
+	DEMO_BILLING,
 	DEMO_BOOKING,
 	DEMO_CAMPAIGNS,
 	DEMO_MODELS,
@@ -292,6 +293,20 @@ async function prepareBooking(operator: Credential) {
 	secrets.set('booking', [DEMO_BOOKING.campaign]);
 }
 
+/** The approved campaign's quote and invoice, which the demo issues. */
+async function prepareBilling(operator: Credential) {
+	const campaignId = values.get('approved')!;
+	const q = await getJson<{ id: string }>(operator, `/api/v1/campaigns/${campaignId}/quote`);
+	values.set('quote', q.id);
+	secrets.set('quote', [DEMO_BILLING.campaign]);
+	const { invoices } = await getJson<{ invoices: { id: string }[] }>(
+		operator,
+		`/api/v1/invoices?campaign=${campaignId}`
+	);
+	values.set('invoice', found('invoice', invoices[0]).id);
+	secrets.set('invoice', [DEMO_BILLING.campaign]);
+}
+
 /** The secrets the app shows once: API tokens, a calendar feed address, an invitation link. */
 async function prepareSecrets(owner: Credential, admin: Credential, operator: Credential) {
 	const everyScope = ['readings:write', 'readings:read', 'campaigns:read'];
@@ -344,7 +359,7 @@ async function prepareRecords() {
 	const admin = session(STAFF_ACCOUNT.admin);
 	const operator = session(STAFF_ACCOUNT.operator);
 	await Promise.all([
-		prepareCampaigns(owner, admin),
+		prepareCampaigns(owner, admin).then(() => prepareBilling(operator)),
 		prepareModel(owner, admin),
 		prepareBooking(operator),
 		prepareSecrets(owner, admin, operator)

@@ -24,5 +24,6 @@ export const creditNoteSchema = z.object({
 /** Filters of the invoice list, as query parameters. */
 export const invoiceQuerySchema = z.object({
 	facility: recordId.optional(),
-	team: recordId.optional()
+	team: recordId.optional(),
+	campaign: recordId.optional()
 });

@@ -11,5 +11,13 @@ export {
 	issueQuote,
 	type Quote
 } from './quotes';
-export { creditInvoice, getInvoice, issueInvoice, listInvoices, type Invoice } from './invoices';
+export {
+	creditInvoice,
+	getInvoice,
+	issueInvoice,
+	listInvoices,
+	slotsToInvoice,
+	type Invoice
+} from './invoices';
 export { invoiceView, quoteResource, invoiceResource, type InvoiceView } from './views';
+export { campaignBilling } from './campaign-billing';

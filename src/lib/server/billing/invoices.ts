@@ -28,7 +28,7 @@ function nextNumber(tx: Tx, facilityId: string): number {
 }
 
 /** Completed slots of the campaign that no standing invoice (one not credited) bills yet. */
-function slotsToInvoice(tx: DbOrTx, campaignId: string) {
+export function slotsToInvoice(tx: DbOrTx, campaignId: string) {
 	const billed = tx
 		.select({ bookingId: invoiceSlot.bookingId })
 		.from(invoiceSlot)
@@ -212,7 +212,7 @@ export function getInvoice(db: DbOrTx, viewer: SessionUser, id: string): Invoice
 	return found && canReadBilling(viewer, found) ? found : undefined;
 }
 
-export type InvoiceFilter = { facility?: string; team?: string };
+export type InvoiceFilter = { facility?: string; team?: string; campaign?: string };
 
 /** The invoices and credit notes the viewer may see, newest first, filtered by facility or team. */
 export function listInvoices(db: Db, viewer: SessionUser, filter: InvoiceFilter) {
@@ -224,6 +224,7 @@ export function listInvoices(db: Db, viewer: SessionUser, filter: InvoiceFilter)
 	}
 	if (filter.facility) where.push(eq(invoice.facilityId, filter.facility));
 	if (filter.team) where.push(eq(invoice.teamId, filter.team));
+	if (filter.campaign) where.push(eq(invoice.campaignId, filter.campaign));
 	return db
 		.select({
 			invoice,

@@ -1,5 +1,10 @@
 import { error, fail, redirect } from '@sveltejs/kit';
-import { campaignActor, canEditCampaign, canUploadReadings } from '$lib/server/access';
+import {
+	campaignActor,
+	canEditCampaign,
+	canReadBilling,
+	canUploadReadings
+} from '$lib/server/access';
 import { campaignSlots } from '$lib/server/bookings';
 import { figuresOrProblem } from '$lib/server/campaign-export';
 import { deleteCampaign, getCampaignFor } from '$lib/server/campaigns';
@@ -27,6 +32,7 @@ export const load: PageServerLoad = ({ locals, params }) => {
 		figures,
 		problem,
 		canEdit: canEditCampaign(user, found),
+		seesBilling: canReadBilling(user, found),
 		actions: availableActions(found.state, campaignActor(user, found)),
 		revisions: listRevisions(locals.db, user, found.id) ?? [],
 		trail: auditTrail(locals.db, user, found.id) ?? [],
