@@ -162,6 +162,17 @@ describe('accessibility (WCAG 2.1 A and AA, serious and critical findings)', () 
 		const approved = await campaignId(page, APPROVED);
 		await expectAccessible(page, [`/campaigns/${approved}`, `/campaigns/${approved}/run-sheet`]);
 	});
+
+	it('a client team’s quote and invoices', async () => {
+		const page = await signedInPage(browser, 'aero2@demo.test', AUDIT);
+		const approved = await campaignId(page, APPROVED);
+		const invoice = (await listed(page, `/api/v1/invoices?campaign=${approved}`, 'invoices'))[0]!;
+		await expectAccessible(page, [
+			`/campaigns/${approved}/quote`,
+			'/invoices',
+			`/invoices/${invoice.id}`
+		]);
+	});
 });
 
 describe('a phone-width screen', () => {
@@ -172,7 +183,8 @@ describe('a phone-width screen', () => {
 		for (const path of [
 			'/campaigns',
 			`/campaigns/${approved}`,
-			`/campaigns/${approved}/run-sheet`
+			`/campaigns/${approved}/run-sheet`,
+			`/campaigns/${approved}/quote`
 		]) {
 			await page.goto(url(path));
 			await page.waitForLoadState('networkidle');
