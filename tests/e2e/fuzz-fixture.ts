@@ -4,6 +4,7 @@
  */
 import Database from 'better-sqlite3';
 import type { Actor, Sessions } from './fuzz-app';
+import { addTestCheckoutSession } from './test-checkout-session';
 
 export type Fixture = {
 	draftCampaign: string;
@@ -27,6 +28,8 @@ export type Fixture = {
 	upload: string;
 	mail: string;
 	team: string;
+	/** A session of the local payment stand-in, written into the database. */
+	checkoutSession: string;
 };
 
 type Get = (actor: Actor, path: string, init?: RequestInit) => Promise<Response>;
@@ -133,6 +136,7 @@ export async function findFixture(
 		)
 	).text();
 
+	const checkoutSession = addTestCheckoutSession(databasePath, baseUrl);
 	const db = new Database(databasePath, { readonly: true, fileMustExist: true });
 	const one = (sql: string, ...args: unknown[]) =>
 		(db.prepare(sql).get(...args) as { id: string } | undefined)?.id ?? 'none';
@@ -156,7 +160,8 @@ export async function findFixture(
 			otherUser: one(`select id from user where email = ?`, 'aero2@demo.test'),
 			upload: one(`select id from readings_upload where campaign_id = ?`, approved.id),
 			mail: one(`select id from mail_outbox`),
-			team: draft.teamId
+			team: draft.teamId,
+			checkoutSession
 		};
 	} finally {
 		db.close();

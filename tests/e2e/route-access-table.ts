@@ -45,7 +45,9 @@ export const RECORDS = {
 	/** A throwaway API token of the owner, for the revoke. */
 	apiToken: 'Alder',
 	invitation: null,
-	calendarFeed: null
+	calendarFeed: null,
+	/** A session of the local payment stand-in that names no invoice. */
+	checkoutSession: null
 } as const satisfies Record<string, 'Alder' | 'Brightwater' | null>;
 export type RecordName = keyof typeof RECORDS;
 
@@ -204,6 +206,14 @@ export const ACCESS_TABLE: readonly AccessLine[] = [
 	{ route: '/api/v1/facilities/[id]/closures', call: 'POST', path: '/api/v1/facilities/{facility}/closures', allow: FACILITY_STAFF },
 	{ route: '/api/v1/bookings/[id]', call: 'PATCH', path: '/api/v1/bookings/{booking}', allow: FACILITY_STAFF, json: '{"state":"no-such-state"}' },
 	{ route: '/api/v1/bookings/[id]', call: 'DELETE', path: '/api/v1/bookings/{booking}', allow: FACILITY_STAFF, changes: true },
+
+	// Payments. The service's webhook takes no session: its signature is the credential, so every
+	// caller without one is answered 400, and an API token is not accepted there.
+	{ route: '/api/v1/payments/webhook', call: 'POST', path: '/api/v1/payments/webhook', allow: ANYONE },
+	// The local stand-in's checkout page: anyone signed in who holds the session's address.
+	{ route: '/(app)/payments/test-checkout/[session]', call: 'load', path: '/payments/test-checkout/{checkoutSession}', allow: SIGNED_IN },
+	{ route: '/(app)/payments/test-checkout/[session]', call: 'action:cancel', path: '/payments/test-checkout/{checkoutSession}', allow: SIGNED_IN },
+	{ route: '/(app)/payments/test-checkout/[session]', call: 'action:pay', path: '/payments/test-checkout/{checkoutSession}', allow: SIGNED_IN, changes: true },
 
 	// JSON API: personal tokens (sessions only, so a leaked token cannot mint more)
 	{ route: '/api/v1/tokens', call: 'GET', path: '/api/v1/tokens', allow: SIGNED_IN },
