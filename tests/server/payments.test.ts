@@ -127,6 +127,26 @@ describe('starting a checkout', () => {
 			code: 'not-found'
 		});
 	});
+
+	it('passes on the service’s refusal of an amount it does not take', async () => {
+		const { db, w, service } = await world();
+		// The service takes amounts of up to eight digits in the minor unit (from memory).
+		const bill = addInvoice(db, w, { total: '1000000.00' });
+		const refused = await startCheckout(db, bill, URLS, service);
+		expect(refused).toMatchObject({ ok: false, code: 'invalid' });
+		expect(stored(db, bill.id).checkoutSessionId).toBeNull();
+	});
+
+	it('refuses, rather than fails, when the service cannot be reached', async () => {
+		const { db, w, service } = await world();
+		const bill = addInvoice(db, w, { total: '100.00' });
+		const logged = vi.spyOn(console, 'error').mockImplementation(() => {});
+		await service.close();
+		const refused = await startCheckout(db, bill, URLS, service);
+		expect(refused).toMatchObject({ ok: false, code: 'conflict' });
+		expect(stored(db, bill.id).checkoutSessionId).toBeNull();
+		expect(logged).toHaveBeenCalledOnce();
+	});
 });
 
 describe('the webhook', () => {

@@ -1,4 +1,5 @@
 import { eq } from 'drizzle-orm';
+import Stripe from 'stripe';
 import { toMinorUnits } from '../../calc';
 import type { Db } from '../db/open';
 import { facility, invoice } from '../db/schema';
@@ -22,6 +23,18 @@ function unpayable(row: InvoiceRow): string | null {
 	if (toMinorUnits(row.total, row.rates.currency) <= 0)
 		return 'This invoice comes to nothing to pay.';
 	return null;
+}
+
+/**
+ * The service said no or could not be reached. A refused request (an amount under the
+ * service's minimum, a currency the account does not take) is the payer's to read; anything
+ * else is the operator's, and the payer is asked to try later.
+ */
+function serviceRefusal(error: InstanceType<typeof Stripe.errors.StripeError>) {
+	if (error instanceof Stripe.errors.StripeInvalidRequestError)
+		return refuse('invalid', `The payment service refused this payment: ${error.message}`);
+	console.error(`Payment service: ${error.type} ${error.statusCode ?? ''} ${error.message}`);
+	return refuse('conflict', 'The payment service cannot be reached just now; try again later.');
 }
 
 /** The line the payer sees on the service's page and statement. */
@@ -76,23 +89,29 @@ export async function startCheckout(
 	const reused = await openSessionUrl(service, row, amount_minor);
 	if (reused) return { ok: true, url: reused };
 
-	const session = await service.stripe.checkout.sessions.create({
-		mode: 'payment',
-		line_items: [
-			{
-				quantity: 1,
-				price_data: {
-					currency: row.rates.currency.toLowerCase(),
-					unit_amount: amount_minor,
-					product_data: { name: checkoutDescription(facilityName, row.number) }
+	let session: Stripe.Checkout.Session;
+	try {
+		session = await service.stripe.checkout.sessions.create({
+			mode: 'payment',
+			line_items: [
+				{
+					quantity: 1,
+					price_data: {
+						currency: row.rates.currency.toLowerCase(),
+						unit_amount: amount_minor,
+						product_data: { name: checkoutDescription(facilityName, row.number) }
+					}
 				}
-			}
-		],
-		client_reference_id: row.id,
-		metadata: { invoiceId: row.id },
-		success_url: successUrl,
-		cancel_url: cancelUrl
-	});
+			],
+			client_reference_id: row.id,
+			metadata: { invoiceId: row.id },
+			success_url: successUrl,
+			cancel_url: cancelUrl
+		});
+	} catch (error) {
+		if (!(error instanceof Stripe.errors.StripeError)) throw error;
+		return serviceRefusal(error);
+	}
 	if (!session.url) throw new Error(`Checkout session ${session.id} came without a page address.`);
 	db.update(invoice).set({ checkoutSessionId: session.id }).where(eq(invoice.id, row.id)).run();
 	return { ok: true, url: session.url };

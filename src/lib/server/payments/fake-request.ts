@@ -37,6 +37,8 @@ const wholeNumber = z
 	.string()
 	.regex(/^\d{1,12}$/)
 	.transform(Number);
+/** The service takes amounts of up to eight digits in the minor unit (from memory). */
+const MAX_AMOUNT_MINOR = 99_999_999;
 
 /** The form the SDK sends to create a checkout session, as far as the stand-in takes it. */
 const createSessionForm = z.object({
@@ -45,7 +47,10 @@ const createSessionForm = z.object({
 	cancelUrl: httpUrl,
 	clientReferenceId: z.string().min(1).max(200).optional(),
 	currency: z.string().regex(/^[a-z]{3}$/),
-	unitAmount: wholeNumber.refine((n) => n > 0, 'must be positive'),
+	unitAmount: wholeNumber.refine(
+		(n) => n > 0 && n <= MAX_AMOUNT_MINOR,
+		`must be 1 to ${MAX_AMOUNT_MINOR} in the minor unit`
+	),
 	name: z.string().min(1).max(500),
 	quantity: wholeNumber.refine((n) => n >= 1 && n <= 999, 'must be 1 to 999')
 });

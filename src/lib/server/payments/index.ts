@@ -7,6 +7,12 @@ export { paymentService } from './running';
 export type { PaymentService } from './service';
 export { startCheckout, type CheckoutUrls } from './checkout';
 export { receiveWebhook, type WebhookAnswer } from './webhook';
+export {
+	payTestCheckout,
+	testCheckoutCancelUrl,
+	testCheckoutView,
+	type TestCheckoutView
+} from './test-checkout';
 
 let starting: Promise<void> | undefined;
 

@@ -1,12 +1,12 @@
 import { error, fail, redirect } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/guards';
 import { STATUS_OF_REFUSAL } from '$lib/server/outcome';
-import { paymentService } from '$lib/server/payments';
 import {
+	paymentService,
 	payTestCheckout,
 	testCheckoutCancelUrl,
 	testCheckoutView
-} from '$lib/server/payments/test-checkout';
+} from '$lib/server/payments';
 import type { Actions, PageServerLoad } from './$types';
 
 // The page stands in for the service's hosted one, which anyone holding the session's
