@@ -22,7 +22,8 @@ const config = {
 				'connect-src': ['self'],
 				'object-src': ['none'],
 				'base-uri': ['self'],
-				'form-action': ['self'],
+				// Paying an invoice posts a form that redirects to the payment service's hosted page.
+				'form-action': ['self', 'https://checkout.stripe.com'],
 				'frame-ancestors': ['none']
 			}
 		}

@@ -47,7 +47,9 @@ export async function startSeededApp({
 		DATABASE_URL: databasePath,
 		// Always the local fake, in the app's own folder, even where the shell names a bucket.
 		S3_URL: '',
-		LOCAL_S3_DIR: join(dir, 'object-store')
+		LOCAL_S3_DIR: join(dir, 'object-store'),
+		// Always the local payment stand-in, even where the shell names an account.
+		STRIPE_SECRET_KEY: ''
 	};
 	execFileSync(process.execPath, ['--import', 'tsx', 'scripts/seed.ts'], {
 		env,

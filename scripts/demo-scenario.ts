@@ -418,7 +418,7 @@ export const DEMO_BILLING = {
 	client: 'aero2@demo.test',
 	acceptanceNote: 'Accepted for the spring test window.',
 	/** The completed slot: Tuesday two weeks back, in the facility's own clock. */
-	completed: { weeksAgo: 2, weekday: 2, from: '09:00', to: '13:00' }
+	completed: { weeksAgo: 2, weekday: 2 as const, from: '09:00', to: '13:00' }
 };
 
 /** A Gaussian wake in a traverse plane: total-pressure loss and static dip at its centre. */

@@ -16,14 +16,15 @@ import { retryAfterSeconds, throttleKeys } from '$lib/server/auth/throttle';
 import { getDb } from '$lib/server/db';
 import { busyResponse, isDatabaseBusy } from '$lib/server/db/busy';
 import { startMail } from '$lib/server/mail';
+import { startPayments } from '$lib/server/payments';
 import { fileStore, startFileStore } from '$lib/server/storage';
 
 /**
- * Open and migrate the database, start mail delivery and open the file store before the first
- * request is served.
+ * Open and migrate the database, start mail delivery and open the file store and the payment
+ * service before the first request is served.
  */
 export const init: ServerInit = async () => {
-	await Promise.all([startMail(getDb()), startFileStore()]);
+	await Promise.all([startMail(getDb()), startFileStore(), startPayments(getDb())]);
 };
 
 const attachDatabase: Handle = ({ event, resolve }) => {

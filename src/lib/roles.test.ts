@@ -25,9 +25,12 @@ describe('navigation by role', () => {
 			'/campaigns',
 			'/models',
 			'/facilities',
+			'/invoices',
 			'/calendar-feed',
 			'/account'
 		]);
+		// Reviewers judge the test, not its price.
+		expect(navFor(['reviewer']).map((i) => i.href)).not.toContain('/invoices');
 		expect(navFor([])).toEqual([]);
 	});
 });

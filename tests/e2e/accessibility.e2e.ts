@@ -1,9 +1,10 @@
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { DEMO_CAMPAIGNS } from '../../scripts/demo-scenario';
 import { launchBrowser, ownOrigin, signedInPage, url } from './browser';
+import { addTestCheckoutSession } from './test-checkout-session';
 
 // axe-core is put into the page as an inline script, which the app's CSP rightly refuses.
 const AUDIT = { bypassCSP: true };
@@ -155,6 +156,12 @@ describe('accessibility (WCAG 2.1 A and AA, serious and critical findings)', () 
 	it("an administrator's pages", async () => {
 		const page = await signedInPage(browser, 'admin@demo.test', AUDIT);
 		await expectAccessible(page, ['/admin', '/admin/outbox']);
+	});
+
+	it("the payment stand-in's checkout page", async () => {
+		const page = await signedInPage(browser, 'aero@demo.test', AUDIT);
+		const session = addTestCheckoutSession(inject('databasePath'), inject('baseUrl'));
+		await expectAccessible(page, [`/payments/test-checkout/${session}`]);
 	});
 
 	it('an approved campaign and its run sheet', async () => {

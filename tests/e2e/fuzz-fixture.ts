@@ -4,6 +4,7 @@
  */
 import Database from 'better-sqlite3';
 import type { Actor, Sessions } from './fuzz-app';
+import { addTestCheckoutSession } from './test-checkout-session';
 
 export type Fixture = {
 	draftCampaign: string;
@@ -29,6 +30,8 @@ export type Fixture = {
 	team: string;
 	quote: string;
 	invoice: string;
+	/** A session of the local payment stand-in, written into the database. */
+	checkoutSession: string;
 };
 
 type Get = (actor: Actor, path: string, init?: RequestInit) => Promise<Response>;
@@ -135,6 +138,7 @@ export async function findFixture(
 		)
 	).text();
 
+	const checkoutSession = addTestCheckoutSession(databasePath, baseUrl);
 	const db = new Database(databasePath, { readonly: true, fileMustExist: true });
 	const one = (sql: string, ...args: unknown[]) =>
 		(db.prepare(sql).get(...args) as { id: string } | undefined)?.id ?? 'none';
@@ -160,7 +164,8 @@ export async function findFixture(
 			mail: one(`select id from mail_outbox`),
 			team: draft.teamId,
 			quote: one(`select id from quote where campaign_id = ?`, approved.id),
-			invoice: one(`select id from invoice where campaign_id = ?`, approved.id)
+			invoice: one(`select id from invoice where campaign_id = ?`, approved.id),
+			checkoutSession
 		};
 	} finally {
 		db.close();

@@ -61,6 +61,7 @@ export function paramsFor(target: Target, fx: Fixture): Record<string, string> {
 		n: String(fx.inReviewRevision),
 		upload: fx.upload,
 		attachmentId: 'none',
+		session: fx.checkoutSession,
 		token: name.includes('invitation') ? fx.invitationToken : `${fx.feedToken}.ics`
 	};
 }

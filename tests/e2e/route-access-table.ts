@@ -48,7 +48,9 @@ export const RECORDS = {
 	calendarFeed: null,
 	/** The approved campaign's accepted quote and its first invoice, unpaid. */
 	quote: 'Brightwater',
-	invoice: 'Brightwater'
+	invoice: 'Brightwater',
+	/** A session of the local payment stand-in that names no invoice. */
+	checkoutSession: null
 } as const satisfies Record<string, 'Alder' | 'Brightwater' | null>;
 export type RecordName = keyof typeof RECORDS;
 
@@ -224,6 +226,14 @@ export const ACCESS_TABLE: readonly AccessLine[] = [
 	{ route: '/api/v1/invoices', call: 'GET', path: '/api/v1/invoices', record: 'invoice', allow: ['owner', 'otherTeam', ...FACILITY_STAFF], conceal: ['otherTeam'] },
 	{ route: '/api/v1/invoices', call: 'POST', path: '/api/v1/invoices', record: 'invoice', allow: FACILITY_STAFF },
 	{ route: '/api/v1/invoices/[id]', call: 'GET', path: '/api/v1/invoices/{invoice}', allow: BILLING_READERS },
+
+	// Payments. The service's webhook takes no session: its signature is the credential, so every
+	// caller without one is answered 400, and an API token is not accepted there.
+	{ route: '/api/v1/payments/webhook', call: 'POST', path: '/api/v1/payments/webhook', allow: ANYONE },
+	// The local stand-in's checkout page: anyone signed in who holds the session's address.
+	{ route: '/(app)/payments/test-checkout/[session]', call: 'load', path: '/payments/test-checkout/{checkoutSession}', allow: SIGNED_IN },
+	{ route: '/(app)/payments/test-checkout/[session]', call: 'action:cancel', path: '/payments/test-checkout/{checkoutSession}', allow: SIGNED_IN },
+	{ route: '/(app)/payments/test-checkout/[session]', call: 'action:pay', path: '/payments/test-checkout/{checkoutSession}', allow: SIGNED_IN, changes: true },
 
 	// JSON API: personal tokens (sessions only, so a leaked token cannot mint more)
 	{ route: '/api/v1/tokens', call: 'GET', path: '/api/v1/tokens', allow: SIGNED_IN },

@@ -18,6 +18,7 @@ import {
 	DEMO_REVIEW_STORY
 } from '../../scripts/demo-scenario';
 import { postAction, send, signInCookie, type Answer, type Credential } from './http-session';
+import { addTestCheckoutSession } from './test-checkout-session';
 import {
 	ACCESS_TABLE,
 	CALLERS,
@@ -346,6 +347,9 @@ async function prepareSecrets(owner: Credential, admin: Credential, operator: Cr
 	);
 	values.set('invitation', found('invitation', /\/invitation\/([\w-]+)/.exec(invited.body)?.[1]));
 	secrets.set('invitation', []);
+
+	values.set('checkoutSession', addTestCheckoutSession(app.databasePath, app.baseUrl));
+	secrets.set('checkoutSession', []);
 }
 
 /** Finds or makes every record the table points at, through the app's own pages and API. */
