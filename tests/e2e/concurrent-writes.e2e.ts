@@ -4,6 +4,7 @@
  * that is stored, whichever process an edit arrives at; and nobody gets a 500.
  */
 import Database from 'better-sqlite3';
+import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startSeededApp, type RunningApp } from '../../scripts/app-server';
 import { signInCookie } from './http-session';
@@ -30,13 +31,13 @@ async function call(
 	process: number,
 	method: string,
 	path: string,
-	{ body, ifMatch }: { body?: unknown; ifMatch?: string } = {}
+	{ body, ifMatch, cookie: as = cookie }: { body?: unknown; ifMatch?: string; cookie?: string } = {}
 ): Promise<Sent> {
 	const baseUrl = app.baseUrls[process % app.baseUrls.length]!;
 	const response = await fetch(new URL(path, baseUrl), {
 		method,
 		headers: {
-			cookie,
+			cookie: as,
 			origin: baseUrl,
 			...(body === undefined ? {} : { 'content-type': 'application/json' }),
 			...(ifMatch ? { 'if-match': ifMatch } : {})
@@ -63,6 +64,51 @@ async function freshDraft(name: string) {
 	expect(made.status).toBe(201);
 	const read = await call(0, 'GET', `/api/v1/campaigns/${made.body.id}`);
 	return { id: made.body.id as string, body: read.body, etag: read.etag! };
+}
+
+/**
+ * `count` copies of the demo's approved campaign, each with one completed slot waiting for an
+ * invoice, written straight into the database: the setup, not what is tested.
+ */
+function completedCampaignCopies(count: number) {
+	const db = new Database(app.databasePath);
+	try {
+		const source = db
+			.prepare(`select * from campaign where state = 'approved' limit 1`)
+			.get() as Record<string, unknown>;
+		const slot = db
+			.prepare(`select * from booking where campaign_id = ? limit 1`)
+			.get(source.id) as Record<string, unknown>;
+		const insert = (table: string, row: Record<string, unknown>) =>
+			db
+				.prepare(
+					`insert into ${table} (${Object.keys(row).join(', ')}) values (${Object.keys(row)
+						.map((k) => `@${k}`)
+						.join(', ')})`
+				)
+				.run(row);
+		const ids = Array.from({ length: count }, (_, i) => {
+			const id = randomUUID();
+			insert('campaign', { ...source, id, name: `Invoiced in parallel ${i}` });
+			insert('booking', { ...slot, id: randomUUID(), campaign_id: id, state: 'completed' });
+			return id;
+		});
+		return { ids, facilityId: source.facility_id as string };
+	} finally {
+		db.close();
+	}
+}
+
+function highestInvoiceNumber(facilityId: string): number {
+	const db = new Database(app.databasePath, { readonly: true });
+	try {
+		const row = db
+			.prepare(`select coalesce(max(number), 0) as n from invoice where facility_id = ?`)
+			.get(facilityId) as { n: number };
+		return row.n;
+	} finally {
+		db.close();
+	}
 }
 
 describe('writes from two processes on one database', () => {
@@ -105,6 +151,20 @@ describe('writes from two processes on one database', () => {
 			const snapshot = (frozen.body.revision as { snapshot: { definition: unknown } }).snapshot;
 			expect(snapshot.definition).toMatchObject({ repeats: stored.body.repeats });
 		}
+	});
+
+	it('numbers 20 invoices issued at once on both processes 1 to 20 higher, without gaps or twins', async () => {
+		const campaigns = completedCampaignCopies(20);
+		const operatorCookie = await signInCookie(app.baseUrl, 'operator@demo.test');
+		const before = highestInvoiceNumber(campaigns.facilityId);
+		const answers = await Promise.all(
+			campaigns.ids.map((campaignId, i) =>
+				call(i, 'POST', '/api/v1/invoices', { body: { campaignId }, cookie: operatorCookie })
+			)
+		);
+		expect(answers.map((a) => a.status)).toEqual(answers.map(() => 201));
+		const numbers = answers.map((a) => a.body.number as number).sort((a, b) => a - b);
+		expect(numbers).toEqual(Array.from({ length: 20 }, (_, i) => before + 1 + i));
 	});
 
 	it('answers 503 with Retry-After when another process holds the write lock past the timeout', async () => {

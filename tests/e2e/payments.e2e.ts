@@ -3,6 +3,7 @@ import { randomBytes, randomUUID } from 'node:crypto';
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { DEMO_READINGS } from '../../scripts/demo-scenario';
+import { documentNumber } from '../../src/lib/billing/numbers';
 import { toMinorUnits } from '../../src/lib/calc';
 import { launchBrowser, signedInPage, url } from './browser';
 
@@ -100,11 +101,11 @@ function paymentRecords(invoiceId: string) {
 				`select count(*) as n from audit_event
 					where campaign_id = ? and action = 'receive-payment' and notes like ?`,
 				paid.campaignId,
-				`Invoice ${paid.number}:%`
+				`Invoice ${documentNumber(paid.number)}:%`
 			),
 			mails: count(
-				`select count(*) as n from mail_outbox where kind = 'payment' and subject = ?`,
-				`Invoice ${paid.number} paid`
+				`select count(*) as n from mail_outbox where kind = 'billing' and subject like ?`,
+				`Invoice ${documentNumber(paid.number)}: % paid — %`
 			)
 		};
 	} finally {
