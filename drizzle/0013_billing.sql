@@ -4,6 +4,7 @@ CREATE TABLE `fake_checkout_session` (
 	`currency` text NOT NULL,
 	`description` text NOT NULL,
 	`metadata` text NOT NULL,
+	`client_reference_id` text,
 	`success_url` text NOT NULL,
 	`cancel_url` text NOT NULL,
 	`status` text DEFAULT 'open' NOT NULL,

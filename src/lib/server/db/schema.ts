@@ -691,6 +691,7 @@ export const fakeCheckoutSession = sqliteTable('fake_checkout_session', {
 	currency: text('currency').notNull(),
 	description: text('description').notNull(),
 	metadata: text('metadata', { mode: 'json' }).$type<Record<string, string>>().notNull(),
+	clientReferenceId: text('client_reference_id'),
 	successUrl: text('success_url').notNull(),
 	cancelUrl: text('cancel_url').notNull(),
 	status: text('status', { enum: ['open', 'complete', 'expired'] })

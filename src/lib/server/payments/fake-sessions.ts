@@ -16,26 +16,13 @@ export type NewFakeSession = {
 	cancelUrl: string;
 };
 
-/**
- * The stand-in keeps `client_reference_id` inside the stored metadata under a key the service
- * never allows in metadata (square brackets), so the two cannot collide.
- */
-const CLIENT_REFERENCE_KEY = '[client_reference_id]';
-
 /** Where a person's browser pays a stand-in session: a page of the app itself. */
 export const TEST_CHECKOUT_PATH = '/payments/test-checkout';
 
 export function createFakeSession(db: DbOrTx, session: NewFakeSession): FakeSession {
-	const { clientReferenceId, metadata, ...rest } = session;
 	return db
 		.insert(fakeCheckoutSession)
-		.values({
-			...rest,
-			id: `cs_test_${randomBytes(24).toString('hex')}`,
-			metadata: clientReferenceId
-				? { ...metadata, [CLIENT_REFERENCE_KEY]: clientReferenceId }
-				: metadata
-		})
+		.values({ ...session, id: `cs_test_${randomBytes(24).toString('hex')}` })
 		.returning()
 		.get();
 }
@@ -59,7 +46,6 @@ export function completeFakeSession(db: DbOrTx, id: string): boolean {
  * object's shape filled with what a payment-mode session without a customer carries.
  */
 export function sessionObject(session: FakeSession): Stripe.Checkout.Session {
-	const { [CLIENT_REFERENCE_KEY]: clientReferenceId, ...metadata } = session.metadata;
 	const open = session.status === 'open';
 	const shape = {
 		id: session.id,
@@ -70,8 +56,8 @@ export function sessionObject(session: FakeSession): Stripe.Checkout.Session {
 		amount_subtotal: session.amount_minor,
 		amount_total: session.amount_minor,
 		currency: session.currency,
-		metadata,
-		client_reference_id: clientReferenceId ?? null,
+		metadata: session.metadata,
+		client_reference_id: session.clientReferenceId,
 		success_url: session.successUrl,
 		cancel_url: session.cancelUrl,
 		status: session.status,
