@@ -1,10 +1,8 @@
 import Database from 'better-sqlite3';
-import { randomBytes, randomUUID } from 'node:crypto';
-import type { Browser } from 'playwright-core';
+import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { DEMO_READINGS } from '../../scripts/demo-scenario';
+import { DEMO_BILLING, DEMO_BOOKING } from '../../scripts/demo-scenario';
 import { documentNumber } from '../../src/lib/billing/numbers';
-import { toMinorUnits } from '../../src/lib/calc';
 import { launchBrowser, signedInPage, url } from './browser';
 
 let browser: Browser;
@@ -16,71 +14,24 @@ beforeAll(async () => {
 afterAll(async () => closeBrowser?.());
 
 const OWNER = 'aero2@demo.test';
-const TOTAL = '1234.50';
 
-function openDb() {
-	return new Database(inject('databasePath'), { fileMustExist: true });
-}
-
-/**
- * An invoice of the demo's approved campaign with a stand-in checkout session for it, written
- * into the database: the demo issues no invoice, and the invoice page that opens a session is
- * not what this test is about. The session is what `startCheckout` would have made.
- */
-function invoiceWithCheckout(number: number) {
-	const db = openDb();
+/** The demo's open invoice: the approved campaign's first slots, issued by the seed. */
+function demoInvoice() {
+	const db = new Database(inject('databasePath'), { readonly: true, fileMustExist: true });
 	try {
-		const campaign = db
+		return db
 			.prepare(
-				`select c.id, c.team_id as teamId, c.facility_id as facilityId from campaign c
-					where c.name = ?`
+				`select i.id, i.number, i.total from invoice i join campaign c on c.id = i.campaign_id
+					where c.name = ? and i.kind = 'invoice' order by i.number limit 1`
 			)
-			.get(DEMO_READINGS.campaign) as { id: string; teamId: string; facilityId: string };
-		const invoiceId = randomUUID();
-		const rates = {
-			hourlyRate: '780.00',
-			setUpFee: '0.00',
-			tearDownFee: '0.00',
-			minimumCharge: '0.00',
-			taxRate_percent: '0',
-			currency: 'EUR'
-		};
-		db.prepare(
-			`insert into invoice (id, facility_id, number, kind, campaign_id, team_id, rates,
-				occupied_s, lines, subtotal, tax, total) values (?, ?, ?, 'invoice', ?, ?, ?, 5697, '[]', ?, '0.00', ?)`
-		).run(
-			invoiceId,
-			campaign.facilityId,
-			number,
-			campaign.id,
-			campaign.teamId,
-			JSON.stringify(rates),
-			TOTAL,
-			TOTAL
-		);
-		const sessionId = `cs_test_${randomBytes(24).toString('hex')}`;
-		const back = url(`/campaigns/${campaign.id}`);
-		db.prepare(
-			`insert into fake_checkout_session
-				(id, amount_minor, currency, description, metadata, success_url, cancel_url)
-				values (?, ?, 'eur', ?, ?, ?, ?)`
-		).run(
-			sessionId,
-			toMinorUnits(TOTAL, 'EUR'),
-			`Invoice ${number}`,
-			JSON.stringify({ invoiceId }),
-			`${back}?paid=1`,
-			back
-		);
-		db.prepare(`update invoice set checkout_session_id = ? where id = ?`).run(sessionId, invoiceId);
-		return { invoiceId, sessionId, back };
+			.get(DEMO_BILLING.campaign) as { id: string; number: number; total: string };
 	} finally {
 		db.close();
 	}
 }
 
 function paymentRecords(invoiceId: string) {
-	const db = openDb();
+	const db = new Database(inject('databasePath'), { readonly: true, fileMustExist: true });
 	try {
 		const paid = db
 			.prepare(
@@ -113,40 +64,56 @@ function paymentRecords(invoiceId: string) {
 	}
 }
 
+/** The client on the invoice page, sent to the stand-in's checkout page by its Pay button. */
+async function toCheckout(page: Page, invoice: { id: string; total: string }) {
+	await page.goto(url(`/invoices/${invoice.id}`));
+	await Promise.all([
+		page.waitForURL((u) => u.pathname.startsWith('/payments/test-checkout/')),
+		page.getByRole('button', { name: /^Pay / }).click()
+	]);
+	return page.url();
+}
+
 describe('paying an invoice on the local stand-in', () => {
-	it('shows a test page without card fields, and Pay, by keyboard, marks the invoice paid through the webhook', async () => {
-		const { invoiceId, sessionId, back } = invoiceWithCheckout(90_001);
+	it('Cancel goes back to the invoice and leaves it unpaid', async () => {
+		const invoice = demoInvoice();
 		const page = await signedInPage(browser, OWNER);
-		await page.goto(url(`/payments/test-checkout/${sessionId}`));
+		await toCheckout(page, invoice);
+		await Promise.all([
+			page.waitForURL(url(`/invoices/${invoice.id}?payment=cancelled`)),
+			page.getByRole('button', { name: 'Cancel' }).click()
+		]);
+		await page.getByRole('status').filter({ hasText: 'nothing was charged' }).waitFor();
+		expect(paymentRecords(invoice.id).paidAt).toBeNull();
+	});
+
+	it('shows a test page without card fields, and Pay, by keyboard, marks the invoice paid through the webhook', async () => {
+		const invoice = demoInvoice();
+		const page = await signedInPage(browser, OWNER);
+		const checkout = await toCheckout(page, invoice);
 		await expect
 			.poll(() => page.getByRole('note').filter({ hasText: 'stand-in' }).innerText())
 			.toMatch(/no card is asked for and no money moves/);
 		expect(await page.locator('input:not([type="hidden"]), select, textarea').count()).toBe(0);
-		expect(await page.getByText('Invoice 90001').count()).toBe(1);
-		const pay = page.getByRole('button', { name: 'Pay 1234.50 EUR' });
+		const description = `${DEMO_BOOKING.facility}, invoice ${documentNumber(invoice.number)}`;
+		expect(await page.getByText(description, { exact: true }).count()).toBe(1);
+		const pay = page.getByRole('button', { name: /^Pay / });
 		await pay.focus();
-		await Promise.all([page.waitForURL(`${back}?paid=1`), page.keyboard.press('Enter')]);
+		await Promise.all([
+			page.waitForURL(url(`/invoices/${invoice.id}?payment=done`)),
+			page.keyboard.press('Enter')
+		]);
+		await page.getByTestId('invoice-status').getByText('paid').waitFor({ timeout: 30_000 });
 
-		const records = paymentRecords(invoiceId);
+		const records = paymentRecords(invoice.id);
 		expect(records.paidAt).not.toBeNull();
 		expect(records.eventId).toMatch(/^evt_test_/);
 		expect(records.audits).toBe(1);
 		expect(records.mails).toBe(1);
 
-		await page.goto(url(`/payments/test-checkout/${sessionId}`));
+		await page.goto(checkout);
 		expect(await page.getByRole('button', { name: /^Pay/ }).count()).toBe(0);
 		expect(await page.getByRole('status').textContent()).toMatch(/ended/);
-	});
-
-	it('Cancel goes back and leaves the invoice unpaid', async () => {
-		const { invoiceId, sessionId, back } = invoiceWithCheckout(90_002);
-		const page = await signedInPage(browser, OWNER);
-		await page.goto(url(`/payments/test-checkout/${sessionId}`));
-		await Promise.all([
-			page.waitForURL(back),
-			page.getByRole('button', { name: 'Cancel' }).click()
-		]);
-		expect(paymentRecords(invoiceId).paidAt).toBeNull();
 	});
 
 	it('answers an unsigned webhook call 400 with the structured error', async () => {

@@ -2,9 +2,8 @@ import Database from 'better-sqlite3';
 import { randomBytes } from 'node:crypto';
 
 /**
- * A session of the local payment stand-in, written straight into the app's database: the
- * demo issues no invoice, and an invoice is the only way the app itself opens one. It names
- * no invoice, so paying it marks nothing paid.
+ * A session of the local payment stand-in that names no invoice, written straight into the
+ * app's database, so the access checks and the fuzz can pay it without marking anything paid.
  */
 export function addTestCheckoutSession(databasePath: string, baseUrl: string): string {
 	const id = `cs_test_${randomBytes(24).toString('hex')}`;

@@ -3,6 +3,7 @@ import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import type { Db } from '../../src/lib/server/db/open';
+import { documentNumber } from '../../src/lib/billing/numbers';
 import { fakeCheckoutSession, invoice } from '../../src/lib/server/db/schema';
 import { startCheckout } from '../../src/lib/server/payments/checkout';
 import type { PaymentService } from '../../src/lib/server/payments/service';
@@ -63,7 +64,7 @@ describe('the stand-in checkout page', () => {
 		const { bill, sessionId } = await openCheckout(db, service);
 		expect(testCheckoutView(db, service, sessionId)).toEqual({
 			id: sessionId,
-			description: `Tern closed-return tunnel, invoice ${bill.number}`,
+			description: `Tern closed-return tunnel, invoice ${documentNumber(bill.number)}`,
 			amount: '1234.50',
 			currency: 'EUR',
 			open: true

@@ -1,5 +1,6 @@
 import { eq } from 'drizzle-orm';
 import Stripe from 'stripe';
+import { documentNumber } from '../../billing/numbers';
 import { toMinorUnits } from '../../calc';
 import type { Db } from '../db/open';
 import { facility, invoice } from '../db/schema';
@@ -39,7 +40,7 @@ function serviceRefusal(error: InstanceType<typeof Stripe.errors.StripeError>) {
 
 /** The line the payer sees on the service's page and statement. */
 export function checkoutDescription(facilityName: string, number: number): string {
-	return `${facilityName}, invoice ${number}`;
+	return `${facilityName}, invoice ${documentNumber(number)}`;
 }
 
 /** An open session already made for this invoice, for the same amount, to send the payer back to. */
