@@ -2,7 +2,7 @@ import Decimal from 'decimal.js';
 import { eq } from 'drizzle-orm';
 import { DateTime } from 'luxon';
 import { describe, expect, it } from 'vitest';
-import { changeBooking, createBooking } from '../../src/lib/server/bookings';
+import { bookableCampaigns, changeBooking, createBooking } from '../../src/lib/server/bookings';
 import { creditInvoice, decideQuote, issueInvoice, issueQuote } from '../../src/lib/server/billing';
 import {
 	campaignRevision,
@@ -193,11 +193,21 @@ describe('booking that needs an accepted quote', () => {
 				ORIGIN,
 				NOW
 			);
+		const awaiting = () =>
+			bookableCampaigns(db, tunnel).find((c) => c.id === campaignId)!.awaitingQuote;
 		expect(book()).toMatchObject({ ok: false, code: 'conflict', field: 'campaignId' });
+		expect(awaiting()).toBe(true);
 		const q = issue();
 		expect(book()).toMatchObject({ ok: false, code: 'conflict' });
 		decideQuote(db, aeroA, q.id, { decision: 'accept', note: '' }, ORIGIN, NOW);
+		expect(awaiting()).toBe(false);
 		expect(book()).toMatchObject({ ok: true });
+		// Without the setting nobody waits for a quote.
+		db.update(facility)
+			.set({ quoteRequiredForBooking: false })
+			.where(eq(facility.id, tunnel))
+			.run();
+		expect(bookableCampaigns(db, tunnel).every((c) => !c.awaitingQuote)).toBe(true);
 	});
 });
 

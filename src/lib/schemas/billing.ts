@@ -14,11 +14,7 @@ export const invoiceRequestSchema = z.object({ campaignId: recordId });
 
 /** A credit note cancels a whole invoice; the reason is printed on it. */
 export const creditNoteSchema = z.object({
-	reason: z
-		.string()
-		.trim()
-		.min(1, { error: 'Say what the credit note corrects.' })
-		.max(2000)
+	reason: z.string().trim().min(1, { error: 'Say what the credit note corrects.' }).max(2000)
 });
 
 /** Filters of the invoice list, as query parameters. */

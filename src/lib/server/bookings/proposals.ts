@@ -2,14 +2,18 @@ import { and, asc, eq, gt, inArray, lt, sql } from 'drizzle-orm';
 import { proposeSlots } from '../../booking/calendar';
 import type { Interval } from '../../booking/rules';
 import type { Db } from '../db/open';
-import { booking, campaign, campaignRevision } from '../db/schema';
+import { booking, campaign, campaignRevision, quote } from '../db/schema';
 import { getFacility } from '../facilities';
 import { refuse, type Outcome } from '../outcome';
 import { listClosures } from './closures';
 import { activeBooking } from './conflicts';
 
-/** Campaigns with an approved revision for this facility, how long each needs and has booked. */
+/**
+ * Campaigns with an approved revision for this facility, how long each needs and has booked,
+ * and whether it still waits for the client to accept a quote where the facility asks for one.
+ */
 export function bookableCampaigns(db: Db, facilityId: string) {
+	const quoteRequired = getFacility(db, facilityId)?.quoteRequiredForBooking ?? false;
 	const held = db
 		.select({
 			campaignId: booking.campaignId,
@@ -30,7 +34,9 @@ export function bookableCampaigns(db: Db, facilityId: string) {
 			name: campaign.name,
 			state: campaign.state,
 			snapshot: campaignRevision.snapshot,
-			booked_ms: held.booked_ms
+			booked_ms: held.booked_ms,
+			quoteAccepted: sql<number>`exists (select 1 from ${quote} where ${quote.campaignId} = ${campaign.id}
+				and ${quote.revisionId} = ${campaign.approvedRevisionId} and ${quote.state} = 'accepted')`
 		})
 		.from(campaign)
 		.innerJoin(campaignRevision, eq(campaignRevision.id, campaign.approvedRevisionId))
@@ -38,10 +44,11 @@ export function bookableCampaigns(db: Db, facilityId: string) {
 		.where(eq(campaign.facilityId, facilityId))
 		.orderBy(asc(campaign.name))
 		.all()
-		.map(({ snapshot, booked_ms, ...c }) => ({
+		.map(({ snapshot, booked_ms, quoteAccepted, ...c }) => ({
 			...c,
 			occupancy_s: snapshot.figures.occupancy.total_s,
-			booked_s: (booked_ms ?? 0) / 1000
+			booked_s: (booked_ms ?? 0) / 1000,
+			awaitingQuote: quoteRequired && !quoteAccepted
 		}));
 }
 

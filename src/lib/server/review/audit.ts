@@ -65,6 +65,9 @@ export function auditTrail(db: Db, viewer: SessionUser, campaignId: string) {
 	// Prices stay between the facility and the client team, so others' trail leaves them out.
 	const shown = canReadBilling(viewer, c)
 		? eq(auditEvent.campaignId, campaignId)
-		: and(eq(auditEvent.campaignId, campaignId), notInArray(auditEvent.action, [...BILLING_ACTIONS]));
+		: and(
+				eq(auditEvent.campaignId, campaignId),
+				notInArray(auditEvent.action, [...BILLING_ACTIONS])
+			);
 	return db.select().from(auditEvent).where(shown).orderBy(desc(auditEvent.createdAt)).all();
 }
