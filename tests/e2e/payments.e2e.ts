@@ -56,7 +56,8 @@ function paymentRecords(invoiceId: string) {
 			),
 			mails: count(
 				`select count(*) as n from mail_outbox where kind = 'billing' and subject like ?`,
-				`Invoice ${documentNumber(paid.number)}: % paid — %`
+				// Numbers run per facility, so the campaign's name tells this invoice's notice apart.
+				`Invoice ${documentNumber(paid.number)}: % paid — ${DEMO_BILLING.campaign}`
 			)
 		};
 	} finally {
