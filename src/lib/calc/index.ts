@@ -108,12 +108,13 @@ export { wakeSurveyDrag } from './wake-drag';
 export type { WakeSurvey, WakeSurveyDrag } from './wake-drag';
 export { reynoldsSweep } from './reynolds-sweep';
 export type { ReynoldsPoint, ReynoldsSweep } from './reynolds-sweep';
-export { occupancyCost, toSignificant } from './money';
+export { toSignificant } from './significant';
 export {
 	amountDifference,
 	CHARGE_ITEMS,
 	creditCharges,
 	minorDigits,
+	occupancyCost,
 	occupancyTimeCharges,
 	priceCharges,
 	TIME_ITEMS,

@@ -4,6 +4,7 @@ import {
 	CalcInputError,
 	creditCharges,
 	minorDigits,
+	occupancyCost,
 	priceCharges,
 	toMinorUnits,
 	type FacilityRates
@@ -138,5 +139,24 @@ describe('pricing tunnel time', () => {
 				fees: true
 			})
 		).toThrow(CalcInputError);
+	});
+});
+
+describe('occupancy cost', () => {
+	it('is hours × rate to the cent, in decimal arithmetic', () => {
+		// decimal.js as the reference: 10 h 20 min at 780.00 per hour.
+		expect(occupancyCost(37200, '780.00', 'EUR')).toBe(
+			new Decimal(37200).div(3600).mul('780.00').toFixed(2)
+		);
+		expect(occupancyCost(37200, '780.00', 'EUR')).toBe('8060.00');
+		// 0.1 + 0.2 in binary floating point is 0.30000000000000004; in decimals it is exact.
+		expect(occupancyCost(3600, '0.1', 'EUR')).toBe('0.10');
+		expect(occupancyCost(1, '3600.005', 'EUR')).toBe('1.00');
+		// ISO 4217: the yen has no minor unit, so 90 min at 1001 per hour is 1501.5 → 1502.
+		expect(occupancyCost(5400, '1001', 'JPY')).toBe('1502');
+	});
+
+	it.each(['abc', '-5', 'Infinity'])('refuses the rate %s', (rate) => {
+		expect(() => occupancyCost(3600, rate, 'EUR')).toThrow(CalcInputError);
 	});
 });

@@ -77,6 +77,20 @@ function amountOf(name: string, value: string): Decimal {
 }
 
 /**
+ * Cost of occupied tunnel time: the exact seconds × the hourly rate, rounded half-up to the
+ * currency's minor unit once. The estimate's cost and every time line of a quote or invoice.
+ */
+export function occupancyCost(time_s: number, hourlyRate: string, currency: string): string {
+	requireNonNegative('time_s', time_s);
+	const digits = minorDigits(currency);
+	return new Decimal(time_s)
+		.mul(amountOf('hourlyRate', hourlyRate))
+		.div(3600)
+		.toDecimalPlaces(digits, Decimal.ROUND_HALF_UP)
+		.toFixed(digits);
+}
+
+/**
  * Prices tunnel time and fees. Rounding rule: every line is rounded half-up to the currency's
  * minor unit, the subtotal is the sum of the rounded lines, the tax is the subtotal times the
  * rate rounded half-up once, and the total is subtotal plus tax. Fees are charged only when
@@ -95,9 +109,8 @@ export function priceCharges(
 	const minimum = amountOf('minimumCharge', rates.minimumCharge);
 	const lines: PriceLine[] = [];
 	for (const { item, time_s } of time) {
-		requireNonNegative(`${item}.time_s`, time_s);
-		const amount = round(new Decimal(time_s).mul(hourly).div(3600));
-		lines.push({ item, time_s, unitPrice: money(hourly), amount: money(amount) });
+		const amount = occupancyCost(time_s, rates.hourlyRate, rates.currency);
+		lines.push({ item, time_s, unitPrice: money(hourly), amount });
 	}
 	if (fees) {
 		for (const [item, value] of [

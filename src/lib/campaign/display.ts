@@ -1,4 +1,4 @@
-import { toSignificant } from '../calc/money';
+import { toSignificant } from '../calc/significant';
 
 /** A Reynolds number to three significant figures in engineering form: 1.53e6. */
 export function formatRe(re: number): string {

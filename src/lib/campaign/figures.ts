@@ -75,7 +75,7 @@ export function campaignFigures(
 		speeds,
 		findings: groupFindings(findings, speeds),
 		occupancy,
-		cost: occupancyCost(occupancy.total_s, facility.hourlyRate),
+		cost: occupancyCost(occupancy.total_s, facility.hourlyRate, facility.currency),
 		currency: facility.currency
 	};
 }

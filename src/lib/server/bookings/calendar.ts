@@ -51,7 +51,7 @@ export function listBookings(
 			updatedBy: visible ? b.updatedBy : null,
 			campaignName: visible ? campaignName : null,
 			cost: visible
-				? occupancyCost((b.end.getTime() - b.start.getTime()) / 1000, f.hourlyRate)
+				? occupancyCost((b.end.getTime() - b.start.getTime()) / 1000, f.hourlyRate, f.currency)
 				: null,
 			currency: f.currency,
 			teamId: visible ? teamId : '',
