@@ -29,6 +29,11 @@ export function sectionKindLabel(kind: keyof typeof SECTION_KIND_LABELS): string
 	return SECTION_KIND_LABELS[kind];
 }
 
+/** A moment's date as "2026-12-01", in UTC: how quotes, invoices and lists date things. */
+export function utcDay(moment: Date | string | number): string {
+	return new Date(moment).toISOString().slice(0, 10);
+}
+
 /** A moment as "2026-12-01 09:30", in UTC. */
 export function utcMinute(moment: Date | string | number): string {
 	return new Date(moment).toISOString().slice(0, 16).replace('T', ' ');

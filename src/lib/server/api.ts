@@ -81,26 +81,32 @@ export async function readJson<S extends z.ZodType>(
 }
 
 /**
- * The raw body, read as it streams in and abandoned at `limit_bytes`, so a body sent without a
- * length cannot make the server hold more than the limit. Null when it is over.
+ * Body bytes as they stream in, abandoned at `limit_bytes` (and refused up front by a declared
+ * length over it), so a body sent without a length cannot make the server hold more than the
+ * limit. Null when it is over. Takes a web stream or a Node request alike.
  */
-export async function readBody(request: Request, limit_bytes: number): Promise<Uint8Array | null> {
-	if (Number(request.headers.get('content-length') ?? 0) > limit_bytes) return null;
-	if (!request.body) return new Uint8Array(0);
-	const chunks: Uint8Array[] = [];
+export async function collectBody(
+	chunks: AsyncIterable<Uint8Array> | null,
+	declaredLength: string | null | undefined,
+	limit_bytes: number
+): Promise<Uint8Array | null> {
+	if (Number(declaredLength ?? 0) > limit_bytes) return null;
+	const parts: Uint8Array[] = [];
 	let size = 0;
-	const reader = request.body.getReader();
-	for (;;) {
-		const { done, value } = await reader.read();
-		if (done) break;
-		size += value.byteLength;
-		if (size > limit_bytes) {
-			await reader.cancel();
-			return null;
-		}
-		chunks.push(value);
+	// Leaving the loop early cancels the stream.
+	for await (const chunk of chunks ?? []) {
+		size += chunk.byteLength;
+		if (size > limit_bytes) return null;
+		parts.push(chunk);
 	}
-	return Buffer.concat(chunks, size);
+	return Buffer.concat(parts, size);
+}
+
+/** A request's raw body within `limit_bytes`, or null when it is over (see collectBody). */
+export function readBody(request: Request, limit_bytes: number): Promise<Uint8Array | null> {
+	// Node's web streams are async iterable; the DOM typings the project compiles with say not.
+	const stream = request.body as AsyncIterable<Uint8Array> | null;
+	return collectBody(stream, request.headers.get('content-length'), limit_bytes);
 }
 
 export function tooLargeMessage(limit_bytes = MAX_REQUEST_BODY_BYTES): string {

@@ -1,21 +1,24 @@
 import { eq } from 'drizzle-orm';
 import type { SessionUser } from '../../roles';
-import { actsForClient, can } from '../access';
+import { actsForClient, can, canReadBilling, type CampaignAccessFacts } from '../access';
 import type { Db } from '../db/open';
 import { campaignRevision } from '../db/schema';
-import { acceptedQuoteFor, campaignQuotes } from './quotes';
+import { acceptedQuoteFor, quotesOf } from './quotes';
 import { listInvoices, slotsToInvoice } from './invoices';
-import { invoiceView } from './views';
 
 /**
  * A campaign's money in one view for its quote page: the quotes newest first, its invoices and
  * credit notes, the completed slots waiting for an invoice, and what the viewer may do next.
- * Undefined when the viewer may not see the campaign's prices (404).
+ * `c` is a campaign the viewer may read; undefined when they may not see its prices (404).
  */
-export function campaignBilling(db: Db, viewer: SessionUser, campaignId: string, now = Date.now()) {
-	const found = campaignQuotes(db, viewer, campaignId);
-	if (!found) return undefined;
-	const { campaign: c, quotes } = found;
+export function campaignBilling(
+	db: Db,
+	viewer: SessionUser,
+	c: CampaignAccessFacts & { id: string; approvedRevisionId: string | null },
+	now = Date.now()
+) {
+	if (!canReadBilling(viewer, c)) return undefined;
+	const quotes = quotesOf(db, c.id);
 	const approvedRevision = c.approvedRevisionId
 		? db
 				.select({ number: campaignRevision.number })
@@ -33,9 +36,7 @@ export function campaignBilling(db: Db, viewer: SessionUser, campaignId: string,
 	return {
 		approvedRevision: approvedRevision ?? null,
 		quotes,
-		invoices: listInvoices(db, viewer, { campaign: c.id }).map((row) =>
-			invoiceView(db, row.invoice)
-		),
+		invoices: listInvoices(db, viewer, { campaign: c.id }),
 		waitingSlots: slotsToInvoice(db, c.id).length,
 		canIssueQuote:
 			staff && !!c.approvedRevisionId && !acceptedQuoteFor(db, c.id, c.approvedRevisionId),

@@ -14,10 +14,11 @@ export {
 export {
 	creditInvoice,
 	getInvoice,
+	INVOICE_LIST_LIMIT,
 	issueInvoice,
 	listInvoices,
 	slotsToInvoice,
 	type Invoice
 } from './invoices';
-export { invoiceView, quoteResource, invoiceResource, type InvoiceView } from './views';
+export { invoiceView, quoteResource, type InvoiceSummary, type InvoiceView } from './views';
 export { campaignBilling } from './campaign-billing';

@@ -3,12 +3,16 @@ import { creditCharges, priceCharges, type FacilityRates } from '../../calc';
 import type { SessionUser } from '../../roles';
 import { can, canReadBilling } from '../access';
 import { writeTransaction, type Db, type DbOrTx, type Tx } from '../db/open';
-import { booking, campaign, facility, invoice, invoiceSlot, quote } from '../db/schema';
+import { booking, campaign, facility, invoice, invoiceSlot } from '../db/schema';
 import { refuse, type Outcome } from '../outcome';
 import { actorName, recordCampaignEvent } from '../review/audit';
 import { notifyBilling } from './notices';
 import { documentNumber } from '../../billing/numbers';
-import { ratesOf } from './quotes';
+import { acceptedQuoteFor, ratesOf } from './quotes';
+import { invoiceRows, invoiceSummary, type InvoiceSummary } from './views';
+
+/** The newest invoices a list shows; older ones are reached by filtering on facility or team. */
+export const INVOICE_LIST_LIMIT = 500;
 
 export type Invoice = typeof invoice.$inferSelect;
 
@@ -72,12 +76,7 @@ export function issueInvoice(
 				'No completed slot of this campaign is waiting to be invoiced.',
 				'campaignId'
 			);
-		const accepted = tx
-			.select()
-			.from(quote)
-			.where(and(eq(quote.campaignId, c.id), eq(quote.state, 'accepted')))
-			.orderBy(desc(quote.issuedAt))
-			.get();
+		const accepted = acceptedQuoteFor(tx, c.id);
 		const f = tx.select().from(facility).where(eq(facility.id, c.facilityId)).get()!;
 		const rates: FacilityRates = accepted?.rates ?? ratesOf(f);
 		const standing = tx
@@ -215,7 +214,7 @@ export function getInvoice(db: DbOrTx, viewer: SessionUser, id: string): Invoice
 export type InvoiceFilter = { facility?: string; team?: string; campaign?: string };
 
 /** The invoices and credit notes the viewer may see, newest first, filtered by facility or team. */
-export function listInvoices(db: Db, viewer: SessionUser, filter: InvoiceFilter) {
+export function listInvoices(db: Db, viewer: SessionUser, filter: InvoiceFilter): InvoiceSummary[] {
 	const where: SQL[] = [];
 	if (!can(viewer, 'manage-billing')) {
 		const teams = viewer.roles.includes('aerodynamicist') ? viewer.teams.map((t) => t.id) : [];
@@ -225,17 +224,9 @@ export function listInvoices(db: Db, viewer: SessionUser, filter: InvoiceFilter)
 	if (filter.facility) where.push(eq(invoice.facilityId, filter.facility));
 	if (filter.team) where.push(eq(invoice.teamId, filter.team));
 	if (filter.campaign) where.push(eq(invoice.campaignId, filter.campaign));
-	return db
-		.select({
-			invoice,
-			facilityName: facility.name,
-			campaignName: campaign.name
-		})
-		.from(invoice)
-		.innerJoin(facility, eq(facility.id, invoice.facilityId))
-		.innerJoin(campaign, eq(campaign.id, invoice.campaignId))
-		.where(and(...where))
+	return invoiceRows(db, and(...where))
 		.orderBy(desc(invoice.issuedAt), desc(invoice.number))
-		.limit(500)
-		.all();
+		.limit(INVOICE_LIST_LIMIT)
+		.all()
+		.map(invoiceSummary);
 }

@@ -1,5 +1,6 @@
 import { and, desc, eq } from 'drizzle-orm';
 import { CalcInputError, occupancyTimeCharges, priceCharges, type FacilityRates } from '../../calc';
+import { utcDay } from '../../format';
 import type { SessionUser } from '../../roles';
 import type { QuoteDecision } from '../../schemas/billing';
 import { actsForClient, can, canReadBilling } from '../access';
@@ -26,19 +27,21 @@ export function ratesOf(f: typeof facility.$inferSelect): FacilityRates {
 	};
 }
 
-const day = (d: Date) => d.toISOString().slice(0, 10);
-
-/** The campaign's quotes, newest first, if the viewer may see its prices; else undefined (404). */
-export function campaignQuotes(db: Db, viewer: SessionUser, campaignId: string) {
-	const c = readableCampaign(db, viewer, campaignId);
-	if (!c || !canReadBilling(viewer, c)) return undefined;
-	const quotes = db
+/** The campaign's quotes, newest first. */
+export function quotesOf(db: DbOrTx, campaignId: string): Quote[] {
+	return db
 		.select()
 		.from(quote)
 		.where(eq(quote.campaignId, campaignId))
 		.orderBy(desc(quote.issuedAt))
 		.all();
-	return { campaign: c, quotes };
+}
+
+/** The campaign's quotes, newest first, if the viewer may see its prices; else undefined (404). */
+export function campaignQuotes(db: Db, viewer: SessionUser, campaignId: string) {
+	const c = readableCampaign(db, viewer, campaignId);
+	if (!c || !canReadBilling(viewer, c)) return undefined;
+	return { campaign: c, quotes: quotesOf(db, campaignId) };
 }
 
 export function getQuote(db: DbOrTx, viewer: SessionUser, quoteId: string): Quote | undefined {
@@ -46,15 +49,18 @@ export function getQuote(db: DbOrTx, viewer: SessionUser, quoteId: string): Quot
 	return q && canReadBilling(viewer, q) ? q : undefined;
 }
 
-/** An accepted quote for the revision a booking would use: what a quote-only facility asks for. */
-export function acceptedQuoteFor(tx: DbOrTx, campaignId: string, revisionId: string) {
+/**
+ * The client's newest accepted quote for the campaign: for one revision (what a quote-only
+ * facility asks before booking), or for any (whose rates an invoice bills at).
+ */
+export function acceptedQuoteFor(tx: DbOrTx, campaignId: string, revisionId?: string) {
 	return tx
 		.select()
 		.from(quote)
 		.where(
 			and(
 				eq(quote.campaignId, campaignId),
-				eq(quote.revisionId, revisionId),
+				revisionId ? eq(quote.revisionId, revisionId) : undefined,
 				eq(quote.state, 'accepted')
 			)
 		)
@@ -129,7 +135,7 @@ export function issueQuote(
 			})
 			.returning()
 			.get();
-		const summary = `${priced.total} ${rates.currency} for revision ${revision.number}, valid until ${day(validUntil)}`;
+		const summary = `${priced.total} ${rates.currency} for revision ${revision.number}, valid until ${utcDay(validUntil)}`;
 		recordCampaignEvent(
 			tx,
 			c,
@@ -173,7 +179,7 @@ export function decideQuote(
 		if (decision.decision === 'accept' && now > q.validUntil.getTime())
 			return refuse(
 				'conflict',
-				`This quote expired on ${day(q.validUntil)}; ask the facility for a new one.`
+				`This quote expired on ${utcDay(q.validUntil)}; ask the facility for a new one.`
 			);
 		const state = decision.decision === 'accept' ? 'accepted' : 'declined';
 		const decided = tx

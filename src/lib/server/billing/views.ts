@@ -1,4 +1,4 @@
-import { asc, eq } from 'drizzle-orm';
+import { asc, eq, type SQL } from 'drizzle-orm';
 import { amountDifference } from '../../calc';
 import { documentNumber } from '../../billing/numbers';
 import type { DbOrTx } from '../db/open';
@@ -30,24 +30,57 @@ export function quoteResource(q: Quote) {
 	};
 }
 
+/** The invoice and the names printed on it, from one query, for a list or one document. */
+export function invoiceRows(db: DbOrTx, where: SQL | undefined) {
+	return db
+		.select({
+			invoice,
+			facilityName: facility.name,
+			teamName: team.name,
+			campaignName: campaign.name
+		})
+		.from(invoice)
+		.innerJoin(facility, eq(facility.id, invoice.facilityId))
+		.innerJoin(team, eq(team.id, invoice.teamId))
+		.innerJoin(campaign, eq(campaign.id, invoice.campaignId))
+		.where(where);
+}
+type InvoiceRow = {
+	invoice: Invoice;
+	facilityName: string;
+	teamName: string;
+	campaignName: string;
+};
+
+function invoiceStatus(inv: Invoice) {
+	if (inv.kind === 'credit-note') return 'credit-note' as const;
+	if (inv.paidAt) return 'paid' as const;
+	return inv.creditedBy ? ('credited' as const) : ('open' as const);
+}
+
 /**
- * An invoice or credit note with what its page and API show beside it: the names on it, the
- * slots it bills, the document it corrects or that corrects it, and how it compares with the
- * accepted quote (time and total quoted, used, and the difference).
+ * An invoice or credit note as lists, pages and the API show it: without the payment
+ * service's ids or who issued it, with its printed number, names and status.
+ */
+export function invoiceSummary({ invoice: inv, ...names }: InvoiceRow) {
+	const { checkoutSessionId: _session, paymentEventId: _event, issuedBy: _by, ...shown } = inv;
+	return {
+		...shown,
+		...names,
+		currency: inv.rates.currency,
+		printedNumber: documentNumber(inv.number),
+		status: invoiceStatus(inv)
+	};
+}
+export type InvoiceSummary = ReturnType<typeof invoiceSummary>;
+
+/**
+ * One invoice or credit note with what its page and API show beside the summary: the slots it
+ * bills, the document it corrects or that corrects it, and how it compares with the accepted
+ * quote (time and total quoted, used, and the difference).
  */
 export function invoiceView(db: DbOrTx, inv: Invoice) {
-	const names = db
-		.select({
-			facility: facility.name,
-			team: team.name,
-			campaign: campaign.name,
-			ownerId: campaign.ownerId
-		})
-		.from(campaign)
-		.innerJoin(facility, eq(facility.id, inv.facilityId))
-		.innerJoin(team, eq(team.id, inv.teamId))
-		.where(eq(campaign.id, inv.campaignId))
-		.get()!;
+	const summary = invoiceSummary(invoiceRows(db, eq(invoice.id, inv.id)).get()!);
 	const slots = db
 		.select({ bookingId: invoiceSlot.bookingId, start: invoiceSlot.start, end: invoiceSlot.end })
 		.from(invoiceSlot)
@@ -56,14 +89,15 @@ export function invoiceView(db: DbOrTx, inv: Invoice) {
 		)
 		.orderBy(asc(invoiceSlot.start))
 		.all();
-	const numberOf = (id: string | null) =>
-		id
-			? db.select({ number: invoice.number }).from(invoice).where(eq(invoice.id, id)).get()?.number
+	const related = (id: string | null) => {
+		const found = id
+			? db.select({ number: invoice.number }).from(invoice).where(eq(invoice.id, id)).get()
 			: undefined;
+		return found ? { id: id!, number: documentNumber(found.number) } : null;
+	};
 	const q = inv.quoteId
 		? db.select().from(quote).where(eq(quote.id, inv.quoteId)).get()
 		: undefined;
-	const currency = inv.rates.currency;
 	const againstQuote =
 		q && inv.kind === 'invoice'
 			? {
@@ -74,38 +108,15 @@ export function invoiceView(db: DbOrTx, inv: Invoice) {
 					difference_s: inv.occupied_s - q.occupied_s,
 					quotedTotal: q.total,
 					invoicedTotal: inv.total,
-					differenceTotal: amountDifference(inv.total, q.total, currency)
+					differenceTotal: amountDifference(inv.total, q.total, summary.currency)
 				}
 			: null;
-	const credits = numberOf(inv.creditsInvoiceId);
-	const creditedBy = numberOf(inv.creditedBy);
 	return {
-		...inv,
-		currency,
-		printedNumber: documentNumber(inv.number),
-		facilityName: names.facility,
-		teamName: names.team,
-		campaignName: names.campaign,
+		...summary,
 		slots,
 		againstQuote,
-		credits:
-			credits === undefined ? null : { id: inv.creditsInvoiceId!, number: documentNumber(credits) },
-		creditedBy:
-			creditedBy === undefined ? null : { id: inv.creditedBy!, number: documentNumber(creditedBy) },
-		status:
-			inv.kind === 'credit-note'
-				? 'credit-note'
-				: inv.paidAt
-					? 'paid'
-					: inv.creditedBy
-						? 'credited'
-						: 'open'
-	} as const;
+		credits: related(inv.creditsInvoiceId),
+		creditedBy: related(inv.creditedBy)
+	};
 }
 export type InvoiceView = ReturnType<typeof invoiceView>;
-
-/** What the API tells of an invoice: its view without internal ids of the payment service. */
-export function invoiceResource(view: InvoiceView) {
-	const { checkoutSessionId: _session, paymentEventId: _event, issuedBy: _by, ...shown } = view;
-	return shown;
-}

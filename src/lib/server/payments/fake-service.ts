@@ -1,6 +1,7 @@
 import { createServer, type IncomingMessage, type ServerResponse } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { timingSafeEqual } from 'node:crypto';
+import { collectBody } from '../api';
 import type { Db } from '../db/open';
 import { invalidRequest, parseCreateSession, type ServiceError } from './fake-request';
 import { createFakeSession, findFakeSession, sessionObject } from './fake-sessions';
@@ -26,19 +27,6 @@ function bearerMatches(request: IncomingMessage, apiKey: string): boolean {
 	return given.length === expected.length && timingSafeEqual(given, expected);
 }
 
-/** The body as text, or null past the limit: refused by its declared length before reading. */
-async function readBody(request: IncomingMessage): Promise<string | null> {
-	if (Number(request.headers['content-length'] ?? 0) > MAX_BODY_BYTES) return null;
-	const chunks: Buffer[] = [];
-	let size = 0;
-	for await (const chunk of request as AsyncIterable<Buffer>) {
-		size += chunk.length;
-		if (size > MAX_BODY_BYTES) return null;
-		chunks.push(chunk);
-	}
-	return Buffer.concat(chunks).toString('utf8');
-}
-
 function pathOf(request: IncomingMessage): string | null {
 	try {
 		return new URL(request.url ?? '/', 'http://stand-in').pathname;
@@ -57,13 +45,13 @@ async function route(db: Db, apiKey: string, request: IncomingMessage, response:
 	const path = pathOf(request);
 	if (path === null) return answerError(response, invalidRequest('The request URL is not valid.'));
 	if (request.method === 'POST' && path === '/v1/checkout/sessions') {
-		const body = await readBody(request);
-		if (body === null)
+		const bytes = await collectBody(request, request.headers['content-length'], MAX_BODY_BYTES);
+		if (bytes === null)
 			return answerError(response, {
 				...invalidRequest('The request body is too large.'),
 				status: 413
 			});
-		const parsed = parseCreateSession(body);
+		const parsed = parseCreateSession(new TextDecoder().decode(bytes));
 		if ('error' in parsed) return answerError(response, parsed);
 		return answer(response, 200, sessionObject(createFakeSession(db, parsed)));
 	}

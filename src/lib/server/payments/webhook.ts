@@ -40,6 +40,11 @@ function isEvent(event: unknown): event is Stripe.Event {
 	);
 }
 
+function notAnEvent(): WebhookAnswer {
+	console.warn('Payment webhook refused: a signed body that is not an event.');
+	return { ok: false, code: 'invalid-event', message: 'The body is not an event.' };
+}
+
 /**
  * Handles one call of the payment service's webhook: the raw body is checked against the
  * signature header with the shared secret before anything in it is believed. Only the event's
@@ -56,10 +61,7 @@ export function receiveWebhook(
 	try {
 		event = service.stripe.webhooks.constructEvent(rawBody, signature ?? '', service.webhookSecret);
 	} catch (error) {
-		if (!(error instanceof Stripe.errors.StripeSignatureVerificationError)) {
-			console.warn('Payment webhook refused: a signed body that is not an event.');
-			return { ok: false, code: 'invalid-event', message: 'The body is not an event.' };
-		}
+		if (!(error instanceof Stripe.errors.StripeSignatureVerificationError)) return notAnEvent();
 		// The SDK's first line says what failed (no header, no match, too old) and quotes nothing.
 		console.warn(`Payment webhook refused: ${error.message.split('\n')[0]!.slice(0, 120)}`);
 		return {
@@ -68,9 +70,6 @@ export function receiveWebhook(
 			message: 'The Stripe-Signature header does not verify this body.'
 		};
 	}
-	if (!isEvent(event)) {
-		console.warn('Payment webhook refused: a signed body that is not an event.');
-		return { ok: false, code: 'invalid-event', message: 'The body is not an event.' };
-	}
+	if (!isEvent(event)) return notAnEvent();
 	return { ok: true, receipt: receivePaymentEvent(db, event, paidSession(event), origin) };
 }

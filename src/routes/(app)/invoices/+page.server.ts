@@ -1,7 +1,7 @@
 import { error } from '@sveltejs/kit';
 import { invoiceQuerySchema } from '$lib/schemas/billing';
 import { can } from '$lib/server/access';
-import { invoiceView, listInvoices } from '$lib/server/billing';
+import { INVOICE_LIST_LIMIT, listInvoices } from '$lib/server/billing';
 import { listFacilities } from '$lib/server/facilities';
 import { requireRole } from '$lib/server/guards';
 import { listTeams } from '$lib/server/users';
@@ -17,8 +17,7 @@ export const load: PageServerLoad = ({ locals, url }) => {
 		staff,
 		facilities: staff ? listFacilities(locals.db).map((f) => ({ id: f.id, name: f.name })) : [],
 		teams: staff ? listTeams(locals.db).filter((t) => t.kind === 'client') : [],
-		invoices: listInvoices(locals.db, user, query.data).map((row) =>
-			invoiceView(locals.db, row.invoice)
-		)
+		invoices: listInvoices(locals.db, user, query.data),
+		listLimit: INVOICE_LIST_LIMIT
 	};
 };

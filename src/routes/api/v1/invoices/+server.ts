@@ -2,7 +2,7 @@ import { error, json } from '@sveltejs/kit';
 import { invoiceQuerySchema, invoiceRequestSchema } from '$lib/schemas/billing';
 import { apiError, fieldMessages, readJson, refusalResponse } from '$lib/server/api';
 import { can } from '$lib/server/access';
-import { invoiceResource, invoiceView, issueInvoice, listInvoices } from '$lib/server/billing';
+import { invoiceView, issueInvoice, listInvoices } from '$lib/server/billing';
 import { requirePermission, requireUser } from '$lib/server/guards';
 import type { RequestHandler } from './$types';
 
@@ -13,9 +13,7 @@ export const GET: RequestHandler = ({ locals, url }) => {
 	const query = invoiceQuerySchema.safeParse(Object.fromEntries(url.searchParams));
 	if (!query.success) return apiError(400, 'invalid', 'Bad filter.', fieldMessages(query.error));
 	return json({
-		invoices: listInvoices(locals.db, user, query.data).map((row) => ({
-			...invoiceResource(invoiceView(locals.db, row.invoice))
-		}))
+		invoices: listInvoices(locals.db, user, query.data)
 	});
 };
 
@@ -26,7 +24,7 @@ export const POST: RequestHandler = async (event) => {
 	if (!body.ok) return body.response;
 	const issued = issueInvoice(event.locals.db, user, body.data.campaignId, event.url.origin);
 	if (!issued.ok) return refusalResponse(issued);
-	return json(invoiceResource(invoiceView(event.locals.db, issued.invoice)), {
+	return json(invoiceView(event.locals.db, issued.invoice), {
 		status: 201,
 		headers: { location: `/api/v1/invoices/${issued.invoice.id}` }
 	});

@@ -15,9 +15,9 @@ import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ locals, params }) => {
 	const user = requireUser(locals);
-	const billing = campaignBilling(locals.db, user, params.id);
-	if (!billing) error(404, { message: 'No such campaign.' });
-	const c = getCampaignFor(locals.db, user, params.id)!;
+	const c = getCampaignFor(locals.db, user, params.id);
+	const billing = c && campaignBilling(locals.db, user, c);
+	if (!c || !billing) error(404, { message: 'No such campaign.' });
 	return {
 		campaign: {
 			id: c.id,

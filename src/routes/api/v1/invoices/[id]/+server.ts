@@ -1,10 +1,10 @@
 import { error, json } from '@sveltejs/kit';
-import { getInvoice, invoiceResource, invoiceView } from '$lib/server/billing';
+import { getInvoice, invoiceView } from '$lib/server/billing';
 import { requireUser } from '$lib/server/guards';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = ({ locals, params }) => {
 	const found = getInvoice(locals.db, requireUser(locals), params.id);
 	if (!found) error(404, { message: 'No such invoice.' });
-	return json(invoiceResource(invoiceView(locals.db, found)));
+	return json(invoiceView(locals.db, found));
 };
