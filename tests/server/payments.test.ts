@@ -188,7 +188,13 @@ describe('the webhook', () => {
 			payload,
 			secret: 'whsec_someone-else'
 		});
-		for (const header of [forged, null, 't=1,v1=00', signature.replace(/v1=./, 'v1=0')]) {
+		// Flip the signature's first hex digit to one it cannot already be.
+		const flipped = signature.replace(
+			/v1=(.)/,
+			(_, digit: string) => `v1=${digit === '0' ? '1' : '0'}`
+		);
+		expect(flipped).not.toBe(signature);
+		for (const header of [forged, null, 't=1,v1=00', flipped]) {
 			const answer = await deliver(db, payload, header);
 			expect(answer.status).toBe(400);
 			expect(answer.body.error.code).toBe('bad-signature');
