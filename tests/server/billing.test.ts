@@ -3,7 +3,13 @@ import { eq } from 'drizzle-orm';
 import { DateTime } from 'luxon';
 import { describe, expect, it } from 'vitest';
 import { bookableCampaigns, changeBooking, createBooking } from '../../src/lib/server/bookings';
-import { creditInvoice, decideQuote, issueInvoice, issueQuote } from '../../src/lib/server/billing';
+import {
+	creditInvoice,
+	decideQuote,
+	INVOICE_PAGE_SIZE,
+	issueInvoice,
+	issueQuote
+} from '../../src/lib/server/billing';
 import {
 	campaignRevision,
 	facility,
@@ -17,6 +23,7 @@ import * as acceptanceRoute from '../../src/routes/api/v1/quotes/[id]/acceptance
 import * as invoicesRoute from '../../src/routes/api/v1/invoices/+server';
 import * as invoiceRoute from '../../src/routes/api/v1/invoices/[id]/+server';
 import { approvedCampaignWorld } from './campaign-fixtures';
+import { addInvoice } from './payment-fixtures';
 import { callRoute as call } from './call-route';
 import { tempDb } from './temp-db';
 
@@ -320,5 +327,45 @@ describe('invoices', () => {
 		expect((await read(reviewer)).status).toBe(404);
 		expect((await call(invoicesRoute.POST, db, aeroA2, { body: { campaignId } })).status).toBe(403);
 		expect(mailsTo(db, aeroA2.email).at(-1)!.text).toContain(`/invoices/${issued.invoice.id}`);
+	});
+
+	it('page newest first from the last row seen, losing and repeating none', async () => {
+		const db = tempDb();
+		const w = approvedCampaignWorld(db, ORIGIN);
+		// Five invoices to a millisecond, so pages also break inside a run of equal issue times.
+		const count = 2 * INVOICE_PAGE_SIZE + 7;
+		const issuedAt = (i: number) => new Date(Date.UTC(2027, 0, 4) + Math.floor(i / 5) * 60_000);
+		const made = Array.from({ length: count }, (_, i) =>
+			addInvoice(db, w, { total: '10.00', issuedAt: issuedAt(i) })
+		);
+		const list = async (user: typeof w.operator, search: string) =>
+			(await call(invoicesRoute.GET, db, user, { search })) as {
+				status: number;
+				body: { invoices: { id: string; issuedAt: string }[]; next: string | null };
+			};
+		const seen: string[] = [];
+		const sizes: number[] = [];
+		let after: string | null = '';
+		while (after !== null) {
+			const page = await list(w.operator, after ? `?after=${after}` : '');
+			expect(page.status).toBe(200);
+			seen.push(...page.body.invoices.map((i) => i.id));
+			sizes.push(page.body.invoices.length);
+			after = page.body.next;
+			// Issued while the list is paged through: it belongs on the first page, not the next.
+			if (sizes.length === 1) addInvoice(db, w, { total: '10.00', issuedAt: issuedAt(count) });
+		}
+		expect(sizes).toEqual([INVOICE_PAGE_SIZE, INVOICE_PAGE_SIZE, 7]);
+		expect(new Set(seen).size).toBe(count);
+		const newestFirst = [...made].sort(
+			(a, b) =>
+				b.issuedAt.getTime() - a.issuedAt.getTime() || b.number - a.number || (a.id < b.id ? 1 : -1)
+		);
+		expect(seen).toEqual(newestFirst.map((i) => i.id));
+		// The client team pages the same list; a row it may not see is no place to go on from.
+		expect((await list(w.aeroA, `?after=${made[3]!.id}`)).body.invoices).toHaveLength(3);
+		const elsewhere = await list(w.aeroB, `?after=${made[3]!.id}`);
+		expect(elsewhere.status).toBe(400);
+		expect((await list(w.operator, '?after=no-such-invoice')).status).toBe(400);
 	});
 });

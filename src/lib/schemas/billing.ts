@@ -21,5 +21,6 @@ export const creditNoteSchema = z.object({
 export const invoiceQuerySchema = z.object({
 	facility: recordId.optional(),
 	team: recordId.optional(),
-	campaign: recordId.optional()
+	campaign: recordId.optional(),
+	after: recordId.optional()
 });

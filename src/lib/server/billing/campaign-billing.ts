@@ -4,7 +4,7 @@ import { actsForClient, can, canReadBilling, type CampaignAccessFacts } from '..
 import type { Db } from '../db/open';
 import { campaignRevision } from '../db/schema';
 import { acceptedQuoteFor, quotesOf } from './quotes';
-import { listInvoices, slotsToInvoice } from './invoices';
+import { campaignInvoices, slotsToInvoice } from './invoices';
 
 /**
  * A campaign's money in one view for its quote page: the quotes newest first, its invoices and
@@ -36,7 +36,7 @@ export function campaignBilling(
 	return {
 		approvedRevision: approvedRevision ?? null,
 		quotes,
-		invoices: listInvoices(db, viewer, { campaign: c.id }),
+		invoices: campaignInvoices(db, c.id),
 		waitingSlots: slotsToInvoice(db, c.id).length,
 		canIssueQuote:
 			staff && !!c.approvedRevisionId && !acceptedQuoteFor(db, c.id, c.approvedRevisionId),

@@ -14,7 +14,7 @@ export {
 export {
 	creditInvoice,
 	getInvoice,
-	INVOICE_LIST_LIMIT,
+	INVOICE_PAGE_SIZE,
 	issueInvoice,
 	listInvoices,
 	slotsToInvoice,

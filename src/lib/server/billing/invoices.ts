@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, inArray, isNull, sql, type SQL } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNull, lt, or, sql, type SQL } from 'drizzle-orm';
 import { creditCharges, priceCharges, type FacilityRates } from '../../calc';
 import type { SessionUser } from '../../roles';
 import { can, canReadBilling } from '../access';
@@ -11,8 +11,8 @@ import { documentNumber } from '../../billing/numbers';
 import { acceptedQuoteFor, ratesOf } from './quotes';
 import { invoiceRows, invoiceSummary, type InvoiceSummary } from './views';
 
-/** The newest invoices a list shows; older ones are reached by filtering on facility or team. */
-export const INVOICE_LIST_LIMIT = 500;
+/** The invoices one page of a list shows. */
+export const INVOICE_PAGE_SIZE = 100;
 
 export type Invoice = typeof invoice.$inferSelect;
 
@@ -211,22 +211,77 @@ export function getInvoice(db: DbOrTx, viewer: SessionUser, id: string): Invoice
 	return found && canReadBilling(viewer, found) ? found : undefined;
 }
 
-export type InvoiceFilter = { facility?: string; team?: string; campaign?: string };
+// The id breaks ties between facilities' sequences issued in the same millisecond.
+const NEWEST_FIRST = [desc(invoice.issuedAt), desc(invoice.number), desc(invoice.id)];
 
-/** The invoices and credit notes the viewer may see, newest first, filtered by facility or team. */
-export function listInvoices(db: Db, viewer: SessionUser, filter: InvoiceFilter): InvoiceSummary[] {
+/**
+ * Every invoice and credit note of one campaign, newest first, for a viewer its billing is open
+ * to. A campaign's documents are bounded by its slots: each invoice bills at least one, and each
+ * credit note cancels one invoice.
+ */
+export function campaignInvoices(db: Db, campaignId: string): InvoiceSummary[] {
+	return invoiceRows(db, eq(invoice.campaignId, campaignId))
+		.orderBy(...NEWEST_FIRST)
+		.all()
+		.map(invoiceSummary);
+}
+
+export type InvoiceFilter = {
+	facility?: string;
+	team?: string;
+	campaign?: string;
+	/** The id of the last invoice of the page before; the page then goes on past it. */
+	after?: string;
+};
+export type InvoicePage = { invoices: InvoiceSummary[]; next: string | null };
+
+/**
+ * A page of the invoices and credit notes the viewer may see, newest first, filtered by facility,
+ * team or campaign. Pages follow on from the last row seen rather than an offset, so an invoice
+ * issued while someone pages through shifts nothing they have yet to see.
+ */
+export function listInvoices(
+	db: Db,
+	viewer: SessionUser,
+	filter: InvoiceFilter
+): Outcome<InvoicePage> {
 	const where: SQL[] = [];
 	if (!can(viewer, 'manage-billing')) {
 		const teams = viewer.roles.includes('aerodynamicist') ? viewer.teams.map((t) => t.id) : [];
-		if (!teams.length) return [];
+		if (!teams.length) return { ok: true, invoices: [], next: null };
 		where.push(inArray(invoice.teamId, teams));
 	}
 	if (filter.facility) where.push(eq(invoice.facilityId, filter.facility));
 	if (filter.team) where.push(eq(invoice.teamId, filter.team));
 	if (filter.campaign) where.push(eq(invoice.campaignId, filter.campaign));
-	return invoiceRows(db, and(...where))
-		.orderBy(desc(invoice.issuedAt), desc(invoice.number))
-		.limit(INVOICE_LIST_LIMIT)
-		.all()
-		.map(invoiceSummary);
+	if (filter.after) {
+		const last = db
+			.select({ issuedAt: invoice.issuedAt, number: invoice.number })
+			.from(invoice)
+			.where(and(eq(invoice.id, filter.after), ...where))
+			.get();
+		if (!last) return refuse('invalid', 'The list cannot go on from an invoice it does not hold.');
+		where.push(
+			or(
+				lt(invoice.issuedAt, last.issuedAt),
+				and(
+					eq(invoice.issuedAt, last.issuedAt),
+					or(
+						lt(invoice.number, last.number),
+						and(eq(invoice.number, last.number), lt(invoice.id, filter.after))
+					)
+				)
+			)!
+		);
+	}
+	const rows = invoiceRows(db, and(...where))
+		.orderBy(...NEWEST_FIRST)
+		.limit(INVOICE_PAGE_SIZE + 1)
+		.all();
+	const page = rows.slice(0, INVOICE_PAGE_SIZE).map(invoiceSummary);
+	return {
+		ok: true,
+		invoices: page,
+		next: rows.length > INVOICE_PAGE_SIZE ? page[page.length - 1]!.id : null
+	};
 }

@@ -12,9 +12,9 @@ export const GET: RequestHandler = ({ locals, url }) => {
 		error(403, { message: 'Invoices are for the facility’s staff and its client teams.' });
 	const query = invoiceQuerySchema.safeParse(Object.fromEntries(url.searchParams));
 	if (!query.success) return apiError(400, 'invalid', 'Bad filter.', fieldMessages(query.error));
-	return json({
-		invoices: listInvoices(locals.db, user, query.data)
-	});
+	const page = listInvoices(locals.db, user, query.data);
+	if (!page.ok) return refusalResponse(page);
+	return json({ invoices: page.invoices, next: page.next });
 };
 
 /** Invoices the campaign's completed slots not yet billed: `{ "campaignId": "…" }`. */
