@@ -40,8 +40,9 @@ export function utcMinute(moment: Date | string | number): string {
 }
 
 /**
- * A decimal-string amount with its currency, grouped for reading ("11,733.40 EUR"). Intl formats
- * the string itself, so no digit passes through a binary float.
+ * A decimal-string amount with its currency, grouped for reading ("11,733.40 EUR"; a credit
+ * "−11,733.40 EUR" with a true minus sign, not a hyphen). Intl formats the string itself, so no
+ * digit passes through a binary float.
  */
 export function money(amount: string, currency: string): string {
 	const digits = minorDigits(currency);
@@ -49,7 +50,8 @@ export function money(amount: string, currency: string): string {
 		minimumFractionDigits: digits,
 		maximumFractionDigits: digits
 	});
-	return `${format.format(amount as Intl.StringNumericLiteral)} ${currency}`;
+	const grouped = format.format(amount as Intl.StringNumericLiteral).replace(/^-/, '\u2212');
+	return `${grouped} ${currency}`;
 }
 
 /** Seconds as hours with two decimals, the way time is billed on a quote or invoice. */
