@@ -123,8 +123,12 @@ describe('quote, acceptance, booking, invoice and payment', () => {
 		// A slot is booked and run.
 		await runSlot(operator, campaign.facilityId, campaign.id, 3);
 
-		// The operator invoices the time used, set against the quote.
+		// The operator sees the 3 h used and not yet invoiced, then invoices it against the quote.
 		await operator.reload();
+		const ledger = operator.getByRole('region', { name: 'Tunnel time' });
+		expect(await ledger.getByRole('row', { name: /^Used/ }).textContent()).toContain('3.00 h');
+		expect(await ledger.getByRole('row', { name: /^Invoiced/ }).textContent()).toContain('0.00 h');
+		await ledger.getByText('3.00 h of completed slots not yet invoiced.').waitFor();
 		await operator.getByRole('button', { name: 'Invoice completed slots' }).click();
 		await operator.waitForURL(/\/invoices\/[\w-]+$/);
 		const invoiceUrl = operator.url();

@@ -4,6 +4,7 @@ import { DateTime } from 'luxon';
 import { describe, expect, it } from 'vitest';
 import { bookableCampaigns, changeBooking, createBooking } from '../../src/lib/server/bookings';
 import {
+	campaignBilling,
 	creditInvoice,
 	decideQuote,
 	INVOICE_PAGE_SIZE,
@@ -17,6 +18,7 @@ import {
 	mailOutbox,
 	quote
 } from '../../src/lib/server/db/schema';
+import { getCampaignFor } from '../../src/lib/server/campaigns';
 import { auditTrail } from '../../src/lib/server/review';
 import * as quoteRoute from '../../src/routes/api/v1/campaigns/[id]/quote/+server';
 import * as acceptanceRoute from '../../src/routes/api/v1/quotes/[id]/acceptance/+server';
@@ -283,6 +285,37 @@ describe('invoices', () => {
 			ok: true,
 			invoice: { number: 3, total: first.invoice.total }
 		});
+	});
+
+	it('keep the campaign’s time quoted, booked, used and invoiced side by side', () => {
+		const { db, operator, aeroA, campaignId, tunnel, completedSlot, issue } = billingWorld();
+		const q = issue();
+		decideQuote(db, aeroA, q.id, { decision: 'accept', note: '' }, ORIGIN, NOW);
+		completedSlot('2027-01-04T08:00', '2027-01-04T12:00');
+		const ahead = createBooking(
+			db,
+			operator,
+			tunnel,
+			{ campaignId, start: at('2027-01-06T08:00'), end: at('2027-01-06T10:30'), note: '' },
+			ORIGIN,
+			NOW
+		);
+		if (!ahead.ok) throw new Error(ahead.message);
+		const time = () => campaignBilling(db, aeroA, getCampaignFor(db, aeroA, campaignId)!)!.time;
+		// 4 h completed and 2.5 h pencilled; the quote's own estimate is the reference.
+		expect(time()).toMatchObject({
+			quoted_s: q.occupied_s,
+			booked_s: 6.5 * 3600,
+			used_s: 4 * 3600,
+			billed_s: 0,
+			toBill_s: 4 * 3600
+		});
+		const first = issueInvoice(db, operator, campaignId, ORIGIN, NOW);
+		if (!first.ok) throw new Error(first.message);
+		expect(time()).toMatchObject({ billed_s: 4 * 3600, toBill_s: 0 });
+		creditInvoice(db, operator, first.invoice.id, 'Wrong slot times', ORIGIN, NOW);
+		expect(time()).toMatchObject({ billed_s: 0, toBill_s: 4 * 3600 });
+		expect(time().findings.map((f) => f.code)).toContain('not-yet-invoiced');
 	});
 
 	it('charge the fees once per campaign, and the minimum charge on each invoice', () => {

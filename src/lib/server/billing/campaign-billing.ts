@@ -2,13 +2,15 @@ import { eq } from 'drizzle-orm';
 import type { SessionUser } from '../../roles';
 import { actsForClient, can, canReadBilling, type CampaignAccessFacts } from '../access';
 import type { Db } from '../db/open';
-import { campaignRevision } from '../db/schema';
+import { timeLedger } from '../../billing/time-ledger';
+import { booking, campaignRevision } from '../db/schema';
 import { acceptedQuoteFor, quotesOf } from './quotes';
 import { campaignInvoices, slotsToInvoice } from './invoices';
 
 /**
  * A campaign's money in one view for its quote page: the quotes newest first, its invoices and
- * credit notes, the completed slots waiting for an invoice, and what the viewer may do next.
+ * credit notes, its time quoted, booked, used and billed, the completed slots waiting for an
+ * invoice, and what the viewer may do next.
  * `c` is a campaign the viewer may read; undefined when they may not see its prices (404).
  */
 export function campaignBilling(
@@ -27,6 +29,14 @@ export function campaignBilling(
 				.get()?.number
 		: undefined;
 	const current = quotes[0];
+	const invoices = campaignInvoices(db, c.id);
+	const slots = db
+		.select({ state: booking.state, start: booking.start, end: booking.end })
+		.from(booking)
+		.where(eq(booking.campaignId, c.id))
+		.all();
+	// The quote the invoices are set against: the newest the client accepted.
+	const accepted = quotes.find((q) => q.state === 'accepted');
 	const staff = can(viewer, 'manage-billing');
 	const answerable =
 		!!current &&
@@ -36,7 +46,8 @@ export function campaignBilling(
 	return {
 		approvedRevision: approvedRevision ?? null,
 		quotes,
-		invoices: campaignInvoices(db, c.id),
+		invoices,
+		time: timeLedger(accepted?.occupied_s ?? null, slots, invoices),
 		waitingSlots: slotsToInvoice(db, c.id).length,
 		canIssueQuote:
 			staff && !!c.approvedRevisionId && !acceptedQuoteFor(db, c.id, c.approvedRevisionId),
