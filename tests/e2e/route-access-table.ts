@@ -150,6 +150,7 @@ export const ACCESS_TABLE: readonly AccessLine[] = [
 	{ route: '/(app)/campaigns/[id]/quote', call: 'action:answer', path: '/campaigns/{approved}/quote', allow: ['owner'] },
 	{ route: '/(app)/campaigns/[id]/quote', call: 'action:invoice', path: '/campaigns/{approved}/quote', allow: FACILITY_STAFF },
 	{ route: '/(app)/invoices', call: 'load', path: '/invoices', record: 'invoice', allow: ['owner', 'otherTeam', ...FACILITY_STAFF], conceal: ['otherTeam'] },
+	{ route: '/(app)/invoices/invoices.csv', call: 'GET', path: '/invoices/invoices.csv', record: 'invoice', allow: ['owner', 'otherTeam', ...FACILITY_STAFF], conceal: ['otherTeam'] },
 	{ route: '/(app)/invoices/[id]', call: 'load', path: '/invoices/{invoice}', allow: BILLING_READERS },
 	{ route: '/(app)/invoices/[id]', call: 'action:credit', path: '/invoices/{invoice}', allow: FACILITY_STAFF },
 	{ route: '/(app)/invoices/[id]', call: 'action:pay', path: '/invoices/{invoice}', allow: ['owner'], changes: true },

@@ -1,4 +1,5 @@
 import Decimal from 'decimal.js';
+import Papa from 'papaparse';
 import { eq } from 'drizzle-orm';
 import { DateTime } from 'luxon';
 import { describe, expect, it } from 'vitest';
@@ -12,6 +13,7 @@ import {
 	issueQuote
 } from '../../src/lib/server/billing';
 import {
+	campaign,
 	campaignRevision,
 	facility,
 	invoice,
@@ -24,6 +26,7 @@ import * as quoteRoute from '../../src/routes/api/v1/campaigns/[id]/quote/+serve
 import * as acceptanceRoute from '../../src/routes/api/v1/quotes/[id]/acceptance/+server';
 import * as invoicesRoute from '../../src/routes/api/v1/invoices/+server';
 import * as invoiceRoute from '../../src/routes/api/v1/invoices/[id]/+server';
+import * as invoicesCsvRoute from '../../src/routes/(app)/invoices/invoices.csv/+server';
 import { approvedCampaignWorld } from './campaign-fixtures';
 import { addInvoice } from './payment-fixtures';
 import { callRoute as call } from './call-route';
@@ -400,5 +403,46 @@ describe('invoices', () => {
 		const elsewhere = await list(w.aeroB, `?after=${made[3]!.id}`);
 		expect(elsewhere.status).toBe(400);
 		expect((await list(w.operator, '?after=no-such-invoice')).status).toBe(400);
+	});
+
+	it('export the whole filtered list as CSV, oldest first, each credit note naming its invoice', async () => {
+		const { db, operator, aeroA2, aeroB, reviewer, tunnel, campaignId, completedSlot } =
+			billingWorld();
+		completedSlot('2027-01-04T08:00', '2027-01-04T12:00');
+		const first = issueInvoice(db, operator, campaignId, ORIGIN, NOW);
+		if (!first.ok) throw new Error(first.message);
+		const credit = creditInvoice(db, operator, first.invoice.id, 'Wrong slot', ORIGIN, NOW);
+		if (!credit.ok) throw new Error(credit.message);
+		// A name a spreadsheet would run as a formula goes out as text (OWASP, "CSV Injection").
+		db.update(campaign).set({ name: '=1+2 wake survey' }).where(eq(campaign.id, campaignId)).run();
+		const download = (user: typeof operator, search = '') =>
+			call(invoicesCsvRoute.GET, db, user, { search });
+		const answer = await download(operator, `?facility=${tunnel}`);
+		expect(answer.headers.get('content-type')).toBe('text/csv; charset=utf-8');
+		expect(answer.headers.get('content-disposition')).toMatch(
+			/^attachment; filename="invoices-\d{4}-\d{2}-\d{2}\.csv"$/
+		);
+		// Read back with papaparse, an independent CSV reader.
+		const table = Papa.parse<Record<string, string>>(answer.body as string, {
+			header: true,
+			skipEmptyLines: true
+		});
+		expect(table.errors).toEqual([]);
+		expect(table.data.map((r) => [r.number, r.kind, r.total, r.corrects_number])).toEqual([
+			['0001', 'invoice', first.invoice.total, ''],
+			['0002', 'credit-note', credit.invoice.total, '0001']
+		]);
+		// 08:00 to 12:00 is 4 h.
+		expect(table.data[0]).toMatchObject({
+			occupied_h: '4.00',
+			currency: 'EUR',
+			status: 'credited',
+			campaign: "'=1+2 wake survey"
+		});
+		const rowsOf = async (user: typeof operator) =>
+			((await download(user)).body as string).trim().split('\n').length - 1;
+		expect(await rowsOf(aeroA2)).toBe(2);
+		expect(await rowsOf(aeroB)).toBe(0);
+		expect((await download(reviewer)).status).toBe(403);
 	});
 });

@@ -22,3 +22,4 @@ export {
 } from './invoices';
 export { invoiceView, quoteResource, type InvoiceSummary, type InvoiceView } from './views';
 export { campaignBilling } from './campaign-billing';
+export { invoicesCsv } from './export';
