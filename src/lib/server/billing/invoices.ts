@@ -215,9 +215,9 @@ export function getInvoice(db: DbOrTx, viewer: SessionUser, id: string): Invoice
 const NEWEST_FIRST = [desc(invoice.issuedAt), desc(invoice.number), desc(invoice.id)];
 
 /**
- * Every invoice and credit note of one campaign, newest first, for a viewer its billing is open
- * to. A campaign's documents are bounded by its slots: each invoice bills at least one, and each
- * credit note cancels one invoice.
+ * Every invoice and credit note of one campaign, newest first; the caller has checked that the
+ * viewer may see the campaign's billing. Unpaged, since a campaign's documents are bounded by
+ * its slots: each invoice bills at least one, and each credit note cancels one invoice.
  */
 export function campaignInvoices(db: Db, campaignId: string): InvoiceSummary[] {
 	return invoiceRows(db, eq(invoice.campaignId, campaignId))
