@@ -130,7 +130,8 @@ describe('starting a checkout', () => {
 
 	it('passes on the service’s refusal of an amount it does not take', async () => {
 		const { db, w, service } = await world();
-		// The service takes amounts of up to eight digits in the minor unit (from memory).
+		// The service takes amounts of up to eight digits in the minor unit (Stripe API reference, the
+		// Charge object's `amount`: 99999999 is USD 999,999.99).
 		const bill = addInvoice(db, w, { total: '1000000.00' });
 		const refused = await startCheckout(db, bill, URLS, service);
 		expect(refused).toMatchObject({ ok: false, code: 'invalid' });

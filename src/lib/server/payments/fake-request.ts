@@ -37,7 +37,10 @@ const wholeNumber = z
 	.string()
 	.regex(/^\d{1,12}$/)
 	.transform(Number);
-/** The service takes amounts of up to eight digits in the minor unit (from memory). */
+/**
+ * The service takes amounts of up to eight digits in the minor unit (Stripe API reference, the
+ * Charge object's `amount`: 99999999 is USD 999,999.99).
+ */
 const MAX_AMOUNT_MINOR = 99_999_999;
 
 /** The form the SDK sends to create a checkout session, as far as the stand-in takes it. */
